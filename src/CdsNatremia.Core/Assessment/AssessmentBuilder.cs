@@ -1,0 +1,68 @@
+using CdsNatremia.Core.Cards;
+
+namespace CdsNatremia.Core.Assessment;
+
+/// <summary>
+/// Collects what the work-up rules say about one patient before it becomes the assessment card.
+/// Not thread-safe: one builder per request.
+/// </summary>
+public sealed class AssessmentBuilder
+{
+    private readonly List<(int Priority, string Text)> _summaryActions = [];
+
+    /// <summary>Key findings, shown first.</summary>
+    public List<string> Findings { get; } = [];
+
+    /// <summary>Reasoning steps, numbered, each naming the data it used.</summary>
+    public List<string> Steps { get; } = [];
+
+    /// <summary>Possible causes to consider.</summary>
+    public List<string> Differential { get; } = [];
+
+    /// <summary>What to do next (advice for the clinician, never an order).</summary>
+    public List<string> NextSteps { get; } = [];
+
+    /// <summary>Orderable suggestions (missing tests).</summary>
+    public List<Suggestion> Suggestions { get; } = [];
+
+    /// <summary>Sources cited by the steps.</summary>
+    public SortedSet<string> Sources { get; } = new(StringComparer.Ordinal);
+
+    /// <summary>Rules that contributed.</summary>
+    public List<string> RuleIds { get; } = [];
+
+    /// <summary>Resources the reasoning used.</summary>
+    public SortedSet<string> ResourcesUsed { get; } = new(StringComparer.Ordinal);
+
+    /// <summary>Separate cards a rule raises where something is urgent (e.g. a critical correction-rate card).</summary>
+    public List<Card> ExtraCards { get; } = [];
+
+    /// <summary>The card's indicator so far.</summary>
+    public CardIndicator Indicator { get; private set; } = CardIndicator.Info;
+
+    /// <summary>Raises the indicator; never lowers it.</summary>
+    public void Raise(CardIndicator indicator)
+    {
+        if (indicator > Indicator)
+        {
+            Indicator = indicator;
+        }
+    }
+
+    /// <summary>Offers the short "what to do" clause of the summary; the highest priority wins, ties go to the first.</summary>
+    public void OfferSummaryAction(int priority, string text) => _summaryActions.Add((priority, text));
+
+    /// <summary>The chosen summary clause, or null.</summary>
+    public string? SummaryAction => _summaryActions.Count == 0
+        ? null
+        : _summaryActions.OrderByDescending(a => a.Priority).First().Text;
+
+    /// <summary>Adds a suggestion unless one with the same key is already there.</summary>
+    public void Suggest(Suggestion suggestion)
+    {
+        if (Suggestions.All(s => !string.Equals(s.Key, suggestion.Key, StringComparison.Ordinal)))
+        {
+            Suggestions.Add(suggestion);
+        }
+    }
+}

@@ -1,0 +1,35 @@
+using CdsNatremia.Core.Cards;
+using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Text;
+
+namespace CdsNatremia.Core.Assessment;
+
+/// <summary>
+/// The closing sections every card shares: data set aside, data notes, cautions and sources. Kept in one place so no
+/// card can forget the cautions or hide what the service could not use.
+/// </summary>
+public static class CardFooter
+{
+    private const int MaxSetAsideShown = 20;
+
+    /// <summary>Writes the shared closing sections.</summary>
+    public static void Write(DetailWriter detail, PatientFacts facts, IEnumerable<string> sources)
+    {
+        Guard.NotNull(detail, nameof(detail));
+        Guard.NotNull(facts, nameof(facts));
+        var setAside = facts.SetAside.Select(Cite.SetAside).ToList();
+        if (setAside.Count > MaxSetAsideShown)
+        {
+            var more = setAside.Count - MaxSetAsideShown;
+            setAside = [.. setAside.Take(MaxSetAsideShown), Invariant.Format($"…and {more} more.")];
+        }
+
+        detail.Bullets("Data set aside (not used, with the reason)", setAside);
+        detail.Bullets(
+            "Data the service could not use",
+            facts.Unavailable.OrderBy(kv => kv.Key, StringComparer.Ordinal).Select(kv => $"{Markdown.Escape(kv.Key)}: {Markdown.Escape(kv.Value)}"));
+        detail.Bullets("Data notes", facts.DataNotes.Select(Markdown.Escape));
+        detail.Bullets(SafetyCautions.Heading, SafetyCautions.All);
+        detail.Bullets("Sources", sources);
+    }
+}

@@ -1,0 +1,46 @@
+using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Text;
+
+namespace CdsNatremia.Core.Assessment;
+
+/// <summary>How a card names the data a step used: value, unit, time, resource, and labels.</summary>
+public static class Cite
+{
+    /// <summary>"Sodium 124 mmol/L at 2026-03-10 06:30 UTC (Observation/na-3; preliminary)".</summary>
+    public static string Result(LabResult result)
+    {
+        Guard.NotNull(result, nameof(result));
+        var labels = new List<string> { Markdown.Escape(result.Reference) };
+        if (result.IsPreliminary)
+        {
+            labels.Add("preliminary");
+        }
+
+        if (result.IsWholeBlood)
+        {
+            labels.Add("whole-blood specimen");
+        }
+
+        if (result.Origin == DataOrigin.FhirServer)
+        {
+            labels.Add("fetched from the FHIR server");
+        }
+
+        if (result.OriginalUnit is { } unit && !string.Equals(unit, result.Unit, StringComparison.OrdinalIgnoreCase)
+            && result.OriginalValue is { } original)
+        {
+            labels.Add(Invariant.Format($"reported as {Invariant.Number(original)} {Markdown.Escape(unit)}"));
+        }
+
+        return Invariant.Format(
+            $"{AnalyteUnits.DisplayName(result.Analyte)} {Invariant.Number(result.Value)} {result.Unit} at {Invariant.Time(result.EffectiveAt)} ({string.Join("; ", labels)})");
+    }
+
+    /// <summary>"Observation/na-9 (Sodium 131 mg/dL, 2026-03-09 08:00 UTC): reason".</summary>
+    public static string SetAside(SetAsideItem item)
+    {
+        Guard.NotNull(item, nameof(item));
+        var when = item.At is { } at ? ", " + Invariant.Time(at) : string.Empty;
+        return $"{Markdown.Escape(item.Reference)} ({Markdown.Escape(item.What)}{when}): {Markdown.Escape(item.Reason)}";
+    }
+}

@@ -1,0 +1,108 @@
+using CdsNatremia.Core.Cards;
+using CdsNatremia.Core.Engine;
+using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Sodium;
+using CdsNatremia.Core.Text;
+
+namespace CdsNatremia.Core.Assessment;
+
+/// <summary>
+/// The one assessment card per request. A normal or high sodium gives no card (no alert noise; high sodium is out of
+/// scope). A low sodium runs the work-up rules in order and composes their output. When no sodium could be used but
+/// some were received, an info card says what was set aside and why, and gives no advice on it.
+/// </summary>
+public sealed class SodiumAssessmentCardProducer : ICardProducer
+{
+    private readonly IReadOnlyList<IAssessmentRule> _rules;
+
+    /// <summary>Creates the producer with the work-up rules to run.</summary>
+    public SodiumAssessmentCardProducer(IReadOnlyList<IAssessmentRule> rules) => _rules = Guard.NotNull(rules, nameof(rules));
+
+    /// <inheritdoc />
+    public string RuleId => "sodium.assessment";
+
+    /// <inheritdoc />
+    public bool Handles(HookKind hook) => hook is HookKind.PatientView or HookKind.ResultArrive;
+
+    /// <inheritdoc />
+    public IEnumerable<Card> Produce(DecisionContext context)
+    {
+        Guard.NotNull(context, nameof(context));
+        var latest = context.Sodium.Latest;
+        if (latest is null)
+        {
+            return UnusableOnly(context);
+        }
+
+        var band = context.Thresholds.Classify(latest.Value);
+        if (band is SeverityBand.Normal or SeverityBand.AboveRange)
+        {
+            return [];
+        }
+
+        var builder = new AssessmentBuilder();
+        foreach (var rule in _rules)
+        {
+            rule.Apply(context, builder);
+        }
+
+        return [Compose(context, latest, band, builder), .. builder.ExtraCards];
+    }
+
+    private Card Compose(DecisionContext context, LabResult latest, SeverityBand band, AssessmentBuilder builder)
+    {
+        var thresholds = context.Thresholds;
+        var labels = latest.IsPreliminary ? ", preliminary" : string.Empty;
+        var summary = Summary.Fit(Invariant.Format(
+            $"Sodium {Invariant.Number(latest.Value)} mmol/L ({thresholds.NameOf(band)} hyponatremia{labels}, {Invariant.ShortTime(latest.EffectiveAt)}) — {builder.SummaryAction ?? "review"}."));
+
+        var detail = new DetailWriter()
+            .Paragraph(Invariant.Format($"**Low sodium work-up** as of {Invariant.Time(context.Request.Now)}. Advisory only."))
+            .Bullets("Findings", builder.Findings)
+            .Numbered("Reasoning (with the data each step used)", builder.Steps)
+            .Bullets("Possible causes to consider", builder.Differential)
+            .Bullets("What clinicians usually consider next", builder.NextSteps);
+        CardFooter.Write(detail, context.Request.Facts, builder.Sources);
+
+        return new Card
+        {
+            Summary = summary,
+            Indicator = builder.Indicator,
+            Detail = detail.ToString(),
+            Topic = "sodium-assessment",
+            RuleIds = [RuleId, .. builder.RuleIds],
+            ResourcesUsed = [.. builder.ResourcesUsed],
+            Suggestions = builder.Suggestions,
+            SelectionBehavior = SelectionBehavior.Any,
+        };
+    }
+
+    private IEnumerable<Card> UnusableOnly(DecisionContext context)
+    {
+        var facts = context.Request.Facts;
+        var sodiumSetAside = facts.SetAside.Where(s => s.Analyte == Analyte.Sodium).ToList();
+        if (sodiumSetAside.Count == 0)
+        {
+            return [];
+        }
+
+        var detail = new DetailWriter()
+            .Paragraph(Invariant.Format(
+                $"**No usable sodium result.** {sodiumSetAside.Count} sodium result(s) were received but none could be used, so the service makes **no assessment** and gives no advice on them."))
+            .Bullets("What to do", ["Check the results in the laboratory system, and repeat the sodium if it is needed."]);
+        CardFooter.Write(detail, facts, []);
+        return
+        [
+            new Card
+            {
+                Summary = Summary.Fit(Invariant.Format($"{sodiumSetAside.Count} sodium result(s) could not be used (see detail); no assessment made.")),
+                Indicator = CardIndicator.Info,
+                Detail = detail.ToString(),
+                Topic = "sodium-assessment",
+                RuleIds = [RuleId, "sodium.unusable"],
+                ResourcesUsed = [],
+                Suggestions = [LabOrders.AsSuggestion(LabOrders.SerumSodium("No usable sodium result was available."), recommended: false)],
+            },
+        ];
+    }
+}

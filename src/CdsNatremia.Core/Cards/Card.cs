@@ -1,0 +1,37 @@
+using CdsNatremia.Core.Facts;
+
+namespace CdsNatremia.Core.Cards;
+
+/// <summary>
+/// A decision-support card before it becomes CDS Hooks JSON. The host gives it a uuid and a source label.
+/// Rule ids and used resources travel with the card for audit; they are not sent to the EHR.
+/// </summary>
+public sealed record Card
+{
+    /// <summary>One sentence, under 140 characters.</summary>
+    public required string Summary { get; init; }
+
+    /// <summary>info, warning or critical.</summary>
+    public required CardIndicator Indicator { get; init; }
+
+    /// <summary>GitHub-flavoured Markdown: reasoning, data used, data set aside, next steps, cautions, sources.</summary>
+    public required string Detail { get; init; }
+
+    /// <summary>Topic code in our own card-topic CodeSystem, e.g. "sodium-assessment".</summary>
+    public required string Topic { get; init; }
+
+    /// <summary>The rules that produced the card, e.g. ["sodium.severity", "workup.tonicity"].</summary>
+    public required IReadOnlyList<string> RuleIds { get; init; }
+
+    /// <summary>Relative references of the FHIR resources the card's reasoning used.</summary>
+    public IReadOnlyList<string> ResourcesUsed { get; init; } = [];
+
+    /// <summary>Suggestions; when non-empty, <see cref="SelectionBehavior"/> is sent.</summary>
+    public IReadOnlyList<Suggestion> Suggestions { get; init; } = [];
+
+    /// <summary>How many suggestions a clinician may accept.</summary>
+    public SelectionBehavior SelectionBehavior { get; init; } = SelectionBehavior.Any;
+
+    /// <summary>Reasons a clinician may give for overriding the card (codes with display).</summary>
+    public IReadOnlyList<CodeRef> OverrideReasons { get; init; } = [];
+}

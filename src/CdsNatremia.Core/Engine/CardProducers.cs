@@ -1,0 +1,13 @@
+using CdsNatremia.Core.Assessment;
+
+namespace CdsNatremia.Core.Engine;
+
+/// <summary>The producers the service runs, in order. Add a new card-producing rule here.</summary>
+public static class CardProducers
+{
+    /// <summary>The default set.</summary>
+    public static IReadOnlyList<ICardProducer> Default() =>
+    [
+        new SodiumAssessmentCardProducer(AssessmentRules.Default()),
+    ];
+}

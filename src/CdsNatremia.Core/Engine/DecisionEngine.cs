@@ -1,0 +1,40 @@
+using CdsNatremia.Core.Cards;
+using CdsNatremia.Core.Knowledge;
+
+namespace CdsNatremia.Core.Engine;
+
+/// <summary>
+/// Runs every card producer that handles the hook, in registration order, and returns their cards, most urgent first.
+/// Pure and thread-safe: it holds only immutable options and knowledge.
+/// </summary>
+public sealed class DecisionEngine
+{
+    private readonly IReadOnlyList<ICardProducer> _producers;
+    private readonly RuleOptions _options;
+    private readonly KnowledgeBase _knowledge;
+
+    /// <summary>Creates the engine.</summary>
+    public DecisionEngine(IEnumerable<ICardProducer> producers, RuleOptions options, KnowledgeBase knowledge)
+    {
+        _producers = Guard.NotNull(producers, nameof(producers)).ToArray();
+        _options = Guard.NotNull(options, nameof(options));
+        _knowledge = Guard.NotNull(knowledge, nameof(knowledge));
+    }
+
+    /// <summary>The producers, in order.</summary>
+    public IReadOnlyList<ICardProducer> Producers => _producers;
+
+    /// <summary>Decides which cards to show.</summary>
+    public IReadOnlyList<Card> Decide(DecisionRequest request)
+    {
+        var context = new DecisionContext(request, _options, _knowledge);
+        return _producers
+            .Where(p => p.Handles(request.Hook))
+            .SelectMany(p => p.Produce(context))
+            .Select((card, index) => (card, index))
+            .OrderByDescending(x => x.card.Indicator)
+            .ThenBy(x => x.index)
+            .Select(x => x.card)
+            .ToList();
+    }
+}

@@ -1,0 +1,19 @@
+using CdsNatremia.Core.Sodium;
+
+namespace CdsNatremia.Core.Engine;
+
+/// <summary>
+/// Every threshold the rules use, grouped by rule. Bound from the "Natremia:Rules" configuration section;
+/// each default's source is in the doc comment of the property that holds it.
+/// </summary>
+public sealed class RuleOptions
+{
+    /// <summary>Severity bands.</summary>
+    public SeverityOptions Severity { get; set; } = new();
+
+    /// <summary>Stale and future-time handling of results.</summary>
+    public SodiumReadingOptions Reading { get; set; } = new();
+
+    /// <summary>Card indicator per band.</summary>
+    public IndicatorOptions Indicators { get; set; } = new();
+}

@@ -1,0 +1,12 @@
+namespace CdsNatremia.Core.Facts;
+
+/// <summary>
+/// A piece of data the service received but did not use, with the reason. Cards list these so a clinician
+/// never mistakes silence for a normal result.
+/// </summary>
+/// <param name="Reference">"Observation/na-9", or a prefetch key such as "prefetch 'sodium'".</param>
+/// <param name="What">A short description for a person, e.g. "Sodium 131 mg/dL".</param>
+/// <param name="Reason">Why it was not used, in plain words.</param>
+/// <param name="Analyte">The analyte it would have been, when known.</param>
+/// <param name="At">The result's time, when known.</param>
+public sealed record SetAsideItem(string Reference, string What, string Reason, Analyte? Analyte = null, DateTimeOffset? At = null);

@@ -1,0 +1,19 @@
+using System.Globalization;
+
+namespace CdsNatremia.Core;
+
+/// <summary>Culture-invariant formatting: a clinical number must read the same on every server.</summary>
+public static class Invariant
+{
+    /// <summary>Formats an interpolated string with the invariant culture.</summary>
+    public static string Format(FormattableString text) => Guard.NotNull(text, nameof(text)).ToString(CultureInfo.InvariantCulture);
+
+    /// <summary>A number with at most one decimal, e.g. 124 or 124.5.</summary>
+    public static string Number(double value) => value.ToString("0.#", CultureInfo.InvariantCulture);
+
+    /// <summary>A time as cards print it: "2026-03-10 06:30 UTC".</summary>
+    public static string Time(DateTimeOffset value) => value.ToUniversalTime().ToString("yyyy-MM-dd HH:mm 'UTC'", CultureInfo.InvariantCulture);
+
+    /// <summary>A short time for summaries: "10 Mar 06:30 UTC".</summary>
+    public static string ShortTime(DateTimeOffset value) => value.ToUniversalTime().ToString("d MMM HH:mm 'UTC'", CultureInfo.InvariantCulture);
+}

@@ -1,0 +1,40 @@
+namespace CdsNatremia.Core.Knowledge;
+
+/// <summary>
+/// The code sets the rules use, by ValueSet id. Loaded once at start-up and shared read-only by every request.
+/// </summary>
+public sealed class KnowledgeBase
+{
+    private readonly Dictionary<string, CodeSet> _sets;
+
+    /// <summary>Creates a knowledge base from code sets; ids must be unique.</summary>
+    public KnowledgeBase(IEnumerable<CodeSet> sets, string version)
+    {
+        _sets = new Dictionary<string, CodeSet>(StringComparer.Ordinal);
+        foreach (var set in Guard.NotNull(sets, nameof(sets)))
+        {
+            if (!_sets.TryAdd(set.Id, set))
+            {
+                throw new ArgumentException($"Two code sets share the id '{set.Id}'.", nameof(sets));
+            }
+        }
+
+        Version = Guard.NotNull(version, nameof(version));
+    }
+
+    /// <summary>An empty knowledge base, for tests of rules that need none.</summary>
+    public static KnowledgeBase Empty { get; } = new([], "empty");
+
+    /// <summary>A version string covering every loaded set (for audit: which knowledge produced a card).</summary>
+    public string Version { get; }
+
+    /// <summary>All sets.</summary>
+    public IReadOnlyCollection<CodeSet> Sets => _sets.Values;
+
+    /// <summary>The set with this id, or null.</summary>
+    public CodeSet? Find(string id) => _sets.GetValueOrDefault(id);
+
+    /// <summary>Sets whose id starts with a prefix, e.g. "drug-" or "condition-".</summary>
+    public IEnumerable<CodeSet> WithIdPrefix(string prefix)
+        => _sets.Values.Where(s => s.Id.StartsWith(prefix, StringComparison.Ordinal)).OrderBy(s => s.Id, StringComparer.Ordinal);
+}

@@ -1,0 +1,137 @@
+using System.Text.Json;
+using CdsNatremia.Core.Facts;
+using Hl7.Fhir.Model;
+
+namespace CdsNatremia.Fhir.Reading;
+
+/// <summary>
+/// Reads a prefetch value (or a fetched search result): null, a Bundle, a single resource, or an OperationOutcome.
+/// A Bundle is split into entries and each resource is parsed on its own, so one bad entry is set aside without
+/// losing the others. OperationOutcome entries (search mode "outcome") become notes, never data.
+/// </summary>
+public sealed class BundleReader
+{
+    private readonly ResourceParser _parser;
+
+    /// <summary>Creates a reader over a shared parser.</summary>
+    public BundleReader(ResourceParser parser) => _parser = parser ?? throw new ArgumentNullException(nameof(parser));
+
+    /// <summary>Reads one value.</summary>
+    public PrefetchValue Read(string key, JsonElement value, DataOrigin origin)
+    {
+        var source = origin == DataOrigin.FhirServer ? $"FHIR server query '{key}'" : $"prefetch '{key}'";
+        if (value.ValueKind is JsonValueKind.Null or JsonValueKind.Undefined)
+        {
+            return new PrefetchValue(key, PrefetchValueKind.Empty, [], []);
+        }
+
+        if (value.ValueKind != JsonValueKind.Object)
+        {
+            return Unusable(key, $"{source} is a JSON {value.ValueKind.ToString().ToLowerInvariant()}, not a FHIR resource");
+        }
+
+        var type = value.TryGetProperty("resourceType", out var rt) && rt.ValueKind == JsonValueKind.String ? rt.GetString() : null;
+        switch (type)
+        {
+            case null:
+                return Unusable(key, $"{source} has no resourceType");
+            case "OperationOutcome":
+                return new PrefetchValue(key, PrefetchValueKind.Failed, [], [$"{source}: the EHR returned an OperationOutcome{Diagnostics(value)}"]);
+            case "Bundle":
+                return ReadBundle(key, source, value, origin);
+            default:
+                var single = _parser.TryParse(value.GetRawText(), out var problem);
+                return single is null
+                    ? Unusable(key, $"{source}: the {type} could not be read as FHIR R4 ({problem})")
+                    : new PrefetchValue(key, PrefetchValueKind.Data, [new ParsedResource(single, null, source, origin)], []);
+        }
+    }
+
+    private PrefetchValue ReadBundle(string key, string source, JsonElement bundle, DataOrigin origin)
+    {
+        var resources = new List<ParsedResource>();
+        var problems = new List<string>();
+        if (bundle.TryGetProperty("entry", out var entries))
+        {
+            if (entries.ValueKind != JsonValueKind.Array)
+            {
+                return Unusable(key, $"{source}: Bundle.entry is not an array");
+            }
+
+            var index = 0;
+            foreach (var entry in entries.EnumerateArray())
+            {
+                ReadEntry(source, entry, index++, origin, resources, problems);
+            }
+        }
+
+        var next = NextLink(bundle);
+        var kind = resources.Count > 0 ? PrefetchValueKind.Data : PrefetchValueKind.Empty;
+        return new PrefetchValue(key, kind, resources, problems, next);
+    }
+
+    private void ReadEntry(string source, JsonElement entry, int index, DataOrigin origin, List<ParsedResource> resources, List<string> problems)
+    {
+        if (entry.ValueKind != JsonValueKind.Object || !entry.TryGetProperty("resource", out var raw) || raw.ValueKind != JsonValueKind.Object)
+        {
+            problems.Add($"{source}: entry {index} has no resource");
+            return;
+        }
+
+        var fullUrl = entry.TryGetProperty("fullUrl", out var fu) && fu.ValueKind == JsonValueKind.String ? fu.GetString() : null;
+        var resource = _parser.TryParse(raw.GetRawText(), out var problem);
+        if (resource is null)
+        {
+            var type = raw.TryGetProperty("resourceType", out var rt) && rt.ValueKind == JsonValueKind.String ? rt.GetString() : "resource";
+            var id = raw.TryGetProperty("id", out var rid) && rid.ValueKind == JsonValueKind.String ? $"{type}/{rid.GetString()}" : $"entry {index}";
+            problems.Add($"{source}: {id} could not be read as FHIR R4 ({problem}); not used");
+            return;
+        }
+
+        if (resource is OperationOutcome outcome)
+        {
+            var text = string.Join("; ", outcome.Issue.Select(i => i.Diagnostics ?? i.Details?.Text).Where(t => !string.IsNullOrWhiteSpace(t)).Take(3));
+            problems.Add($"{source}: the server added an OperationOutcome{(text.Length > 0 ? ": " + text : string.Empty)}");
+            return;
+        }
+
+        resources.Add(new ParsedResource(resource, fullUrl, source, origin));
+    }
+
+    private static string? NextLink(JsonElement bundle)
+    {
+        if (!bundle.TryGetProperty("link", out var links) || links.ValueKind != JsonValueKind.Array)
+        {
+            return null;
+        }
+
+        foreach (var link in links.EnumerateArray())
+        {
+            if (link.ValueKind == JsonValueKind.Object
+                && link.TryGetProperty("relation", out var rel) && rel.ValueKind == JsonValueKind.String && rel.GetString() == "next"
+                && link.TryGetProperty("url", out var url) && url.ValueKind == JsonValueKind.String)
+            {
+                return url.GetString();
+            }
+        }
+
+        return null;
+    }
+
+    private static string Diagnostics(JsonElement outcome)
+    {
+        if (!outcome.TryGetProperty("issue", out var issues) || issues.ValueKind != JsonValueKind.Array)
+        {
+            return string.Empty;
+        }
+
+        var texts = issues.EnumerateArray()
+            .Select(i => i.ValueKind == JsonValueKind.Object && i.TryGetProperty("diagnostics", out var d) && d.ValueKind == JsonValueKind.String ? d.GetString() : null)
+            .Where(t => !string.IsNullOrWhiteSpace(t))
+            .Take(3)
+            .ToList();
+        return texts.Count > 0 ? ": " + string.Join("; ", texts) : string.Empty;
+    }
+
+    private static PrefetchValue Unusable(string key, string reason) => new(key, PrefetchValueKind.Unusable, [], [reason]);
+}

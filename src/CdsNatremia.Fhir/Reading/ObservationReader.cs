@@ -1,0 +1,155 @@
+using System.Globalization;
+using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Sodium;
+using Hl7.Fhir.Model;
+
+namespace CdsNatremia.Fhir.Reading;
+
+/// <summary>
+/// Turns an Observation into a <see cref="LabResult"/>, or sets it aside with the reason. Rules, in order:
+/// a LOINC code the service reads (others are ignored, not listed); the subject is this patient; status
+/// final/amended/corrected (preliminary counted and labelled; cancelled, entered-in-error, registered and unknown never);
+/// a numeric valueQuantity without a comparator; a time (effective[x], else issued) not in the future;
+/// a unit the analyte accepts, converted to the canonical unit; a plausible value.
+/// </summary>
+public sealed class ObservationReader
+{
+    private readonly SodiumReadingOptions _options;
+
+    /// <summary>Creates a reader.</summary>
+    public ObservationReader(SodiumReadingOptions options) => _options = options ?? throw new ArgumentNullException(nameof(options));
+
+    /// <summary>Reads one Observation. Returns false when it is not a code the service reads.</summary>
+    public bool TryRead(Observation observation, string patientId, DateTimeOffset now, DataOrigin origin, out LabResult? result, out SetAsideItem? setAside)
+    {
+        ArgumentNullException.ThrowIfNull(observation);
+        result = null;
+        setAside = null;
+        var coding = observation.Code?.Coding?.FirstOrDefault(c => c.System == CodeSystems.Loinc && c.Code is not null
+            && (LoincCatalog.TryGet(c.Code, out _) || LoincCatalog.IsRefused(c.Code, out _, out _)));
+        if (coding?.Code is not { } code)
+        {
+            return false;
+        }
+
+        var reference = "Observation/" + (observation.Id ?? "(no id)");
+        var time = FhirTime.From(observation.Effective) ?? FhirTime.From(observation.IssuedElement);
+        var describedValue = Describe(observation);
+
+        if (LoincCatalog.IsRefused(code, out var refusedAnalyte, out var refusedReason))
+        {
+            setAside = new SetAsideItem(reference, $"LOINC {code} {describedValue}", refusedReason, refusedAnalyte, time);
+            return true;
+        }
+
+        LoincCatalog.TryGet(code, out var entry);
+        var what = $"{AnalyteUnits.DisplayName(entry.Analyte)} {describedValue}";
+        SetAsideItem Aside(string reason) => new(reference, what, reason, entry.Analyte, time);
+
+        if (string.IsNullOrEmpty(observation.Id))
+        {
+            setAside = Aside("the Observation has no id, so a card could not cite it");
+            return true;
+        }
+
+        if (!References.IsPatient(observation.Subject?.Reference, patientId))
+        {
+            setAside = Aside(observation.Subject?.Reference is null
+                ? "no subject: it cannot be confirmed to belong to this patient"
+                : "its subject is not the patient in the hook context");
+            return true;
+        }
+
+        var preliminary = false;
+        switch (observation.Status)
+        {
+            case ObservationStatus.Final or ObservationStatus.Amended or ObservationStatus.Corrected:
+                break;
+            case ObservationStatus.Preliminary:
+                preliminary = true;
+                break;
+            case ObservationStatus.Cancelled:
+                setAside = Aside("status cancelled: a cancelled result never counts");
+                return true;
+            case ObservationStatus.EnteredInError:
+                setAside = Aside("status entered-in-error: a result entered in error never counts");
+                return true;
+            case ObservationStatus.Registered:
+                setAside = Aside("status registered: no result yet");
+                return true;
+            default:
+                setAside = Aside($"status {StatusText(observation)}: only final, amended, corrected or preliminary results are used");
+                return true;
+        }
+
+        if (observation.DataAbsentReason is not null)
+        {
+            setAside = Aside("the result is marked as absent (dataAbsentReason)");
+            return true;
+        }
+
+        if (observation.Value is not Quantity quantity || quantity.Value is not { } rawValue)
+        {
+            setAside = Aside("no numeric quantity value");
+            return true;
+        }
+
+        if (quantity.Comparator is not null)
+        {
+            setAside = Aside("the value is a bound (it has a comparator such as '<'), not a measurement");
+            return true;
+        }
+
+        if (time is null)
+        {
+            setAside = Aside("no time (neither effective[x] nor issued)");
+            return true;
+        }
+
+        if (time > now.AddMinutes(_options.FutureToleranceMinutes))
+        {
+            setAside = Aside("its time is in the future");
+            return true;
+        }
+
+        var unit = UnitOf(quantity);
+        var value = (double)rawValue;
+        if (!UnitConversions.TryConvert(entry.Analyte, code, value, unit, out var canonical, out var reason))
+        {
+            setAside = Aside(reason);
+            return true;
+        }
+
+        var range = observation.ReferenceRange?.FirstOrDefault();
+        result = new LabResult(
+            observation.Id,
+            entry.Analyte,
+            canonical,
+            time.Value,
+            preliminary,
+            entry.Specimen,
+            code,
+            UnitConversions.ConvertBound(entry.Analyte, code, (double?)range?.Low?.Value, range?.Low is null ? null : UnitOf(range.Low)),
+            UnitConversions.ConvertBound(entry.Analyte, code, (double?)range?.High?.Value, range?.High is null ? null : UnitOf(range.High)),
+            value,
+            unit,
+            origin);
+        return true;
+    }
+
+    /// <summary>The UCUM code when the system is UCUM (or absent), else the human unit string.</summary>
+    private static string? UnitOf(Quantity quantity)
+        => !string.IsNullOrWhiteSpace(quantity.Code) && (quantity.System is null || quantity.System == CodeSystems.Ucum)
+            ? quantity.Code
+            : quantity.Unit;
+
+    private static string StatusText(Observation observation) => observation.StatusElement?.JsonValue as string ?? "missing";
+
+    private static string Describe(Observation observation) => observation.Value switch
+    {
+        Quantity q when q.Value is { } v => $"{q.Comparator?.ToString() ?? string.Empty}{v.ToString(CultureInfo.InvariantCulture)} {UnitOf(q) ?? "(no unit)"}".Trim(),
+        FhirString s => $"'{s.Value}'",
+        null => "(no value)",
+        var other => $"({other.TypeName})",
+    };
+}

@@ -1,0 +1,59 @@
+using CdsNatremia.Core.Engine;
+using CdsNatremia.Fhir.Knowledge;
+using CdsNatremia.Fhir.Reading;
+using CdsNatremia.Service.Endpoints;
+using CdsNatremia.Service.Hooks;
+using CdsNatremia.Service.Knowledge;
+using Microsoft.Extensions.Options;
+
+namespace CdsNatremia.Service.Configuration;
+
+/// <summary>Wires the service: options, knowledge, the FHIR layer, the engine and the endpoints.</summary>
+public static class ServiceRegistration
+{
+    /// <summary>Registers everything the service needs. Loads the knowledge files now, so a bad file stops start-up.</summary>
+    public static WebApplicationBuilder AddNatremia(this WebApplicationBuilder builder)
+    {
+        ArgumentNullException.ThrowIfNull(builder);
+        var services = builder.Services;
+        services.AddOptions<NatremiaServiceOptions>().Bind(builder.Configuration.GetSection(NatremiaServiceOptions.Section)).ValidateDataAnnotations().ValidateOnStart();
+        services.AddOptions<RuleOptions>().Bind(builder.Configuration.GetSection(NatremiaServiceOptions.Section + ":Rules")).ValidateOnStart();
+        services.AddSingleton<IValidateOptions<RuleOptions>, RuleOptionsValidator>();
+        services.AddProblemDetails();
+        services.AddExceptionHandler<ClientErrorExceptionHandler>();
+        services.ConfigureHttpJsonOptions(o => o.SerializerOptions.PropertyNamingPolicy = System.Text.Json.JsonNamingPolicy.CamelCase);
+
+        services.AddSingleton(TimeProvider.System);
+        services.AddSingleton<ResourceParser>();
+        services.AddSingleton<BundleReader>();
+        services.AddSingleton(sp => new FactsAssembler(sp.GetRequiredService<IOptions<RuleOptions>>().Value.Reading));
+        services.AddSingleton<ServiceCatalog>();
+        services.AddSingleton<CardResponseWriter>();
+        services.AddSingleton<IPrefetchCompleter, NoFetchPrefetchCompleter>();
+        services.AddSingleton<HookHandler>();
+
+        var directory = KnowledgeDirectory.Resolve(
+            builder.Configuration[NatremiaServiceOptions.Section + ":" + nameof(NatremiaServiceOptions.KnowledgeDirectory)],
+            builder.Environment.ContentRootPath);
+        var knowledge = KnowledgeLoader.Load(directory);
+        services.AddSingleton(knowledge);
+        services.AddSingleton(new KnowledgeState { Current = knowledge });
+        services.AddSingleton(sp => new DecisionEngine(
+            CardProducers.Default(),
+            sp.GetRequiredService<IOptions<RuleOptions>>().Value,
+            sp.GetRequiredService<LoadedKnowledge>().Base));
+        return builder;
+    }
+
+    /// <summary>Adds the middleware and endpoints.</summary>
+    public static WebApplication UseNatremia(this WebApplication app)
+    {
+        ArgumentNullException.ThrowIfNull(app);
+        app.UseExceptionHandler();
+        app.UseStatusCodePages();
+        app.MapDiscovery();
+        app.MapHooks();
+        app.MapHealth();
+        return app;
+    }
+}

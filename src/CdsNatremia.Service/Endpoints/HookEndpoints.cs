@@ -1,0 +1,70 @@
+using System.Text.Json;
+using System.Text.Json.Nodes;
+using CdsNatremia.Service.Configuration;
+using CdsNatremia.Service.Hooks;
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.Extensions.Options;
+
+namespace CdsNatremia.Service.Endpoints;
+
+/// <summary>POST /cds-services/{id}: run one service.</summary>
+internal static class HookEndpoints
+{
+    public static IEndpointRouteBuilder MapHooks(this IEndpointRouteBuilder app)
+    {
+        app.MapPost("/cds-services/{id}", Invoke).WithName("InvokeService");
+        return app;
+    }
+
+    public static async Task<Results<Ok<JsonObject>, ProblemHttpResult>> Invoke(
+        string id,
+        HttpRequest http,
+        ServiceCatalog catalog,
+        HookHandler handler,
+        CardResponseWriter writer,
+        IOptions<NatremiaServiceOptions> options,
+        CancellationToken cancellationToken)
+    {
+        var service = catalog.Find(id);
+        if (service is null)
+        {
+            return Problems.Of(StatusCodes.Status404NotFound, "Unknown service", [$"No CDS service has the id '{Clip(id)}'. GET /cds-services lists the services."]);
+        }
+
+        if (!http.HasJsonContentType())
+        {
+            return Problems.Of(StatusCodes.Status415UnsupportedMediaType, "Unsupported media type", ["The request body must be JSON (Content-Type: application/json)."]);
+        }
+
+        JsonDocument document;
+        try
+        {
+            document = await JsonDocument.ParseAsync(http.Body, new JsonDocumentOptions { MaxDepth = options.Value.MaxJsonDepth }, cancellationToken).ConfigureAwait(false);
+        }
+        catch (JsonException ex)
+        {
+            var where = ex.LineNumber is { } line ? $" (line {line + 1}, position {ex.BytePositionInLine + 1})" : string.Empty;
+            var depth = ex.Message.Contains("depth", StringComparison.OrdinalIgnoreCase) ? $" JSON nesting deeper than {options.Value.MaxJsonDepth} levels is refused." : string.Empty;
+            return Problems.Of(StatusCodes.Status400BadRequest, "Malformed JSON", [$"The request body is not valid JSON{where}.{depth}"]);
+        }
+
+        using (document)
+        {
+            var outcome = await handler.HandleAsync(service, document.RootElement, cancellationToken).ConfigureAwait(false);
+            switch (outcome)
+            {
+                case HookOutcome.Invalid invalid:
+                    return Problems.Of(StatusCodes.Status400BadRequest, "Invalid CDS Hooks request", invalid.Problems);
+                case HookOutcome.MissingData missing:
+                    return Problems.Of(StatusCodes.Status412PreconditionFailed, "Required data not available", missing.Problems);
+                case HookOutcome.Cards cards:
+                    var (body, _) = writer.Write(cards.Items, cards.PatientId, cards.Now);
+                    return TypedResults.Ok(body);
+                default:
+                    throw new InvalidOperationException("Unknown hook outcome.");
+            }
+        }
+    }
+
+    private static string Clip(string text) => text.Length <= 64 ? text : text[..64] + "…";
+}

@@ -1,0 +1,123 @@
+using System.Text.Json;
+using CdsNatremia.Core.Engine;
+using CdsNatremia.Core.Facts;
+using CdsNatremia.Fhir.Reading;
+
+namespace CdsNatremia.Service.Hooks;
+
+/// <summary>
+/// From a validated request to cards: read prefetch, obtain what is missing, refuse with 412 when required data
+/// cannot be had, assemble facts, run the engine. No HTTP types here; the endpoint maps the outcome.
+/// </summary>
+public sealed class HookHandler
+{
+    private readonly BundleReader _bundles;
+    private readonly FactsAssembler _assembler;
+    private readonly DecisionEngine _engine;
+    private readonly IPrefetchCompleter _completer;
+    private readonly TimeProvider _time;
+
+    /// <summary>Creates the handler.</summary>
+    public HookHandler(BundleReader bundles, FactsAssembler assembler, DecisionEngine engine, IPrefetchCompleter completer, TimeProvider time)
+    {
+        _bundles = bundles;
+        _assembler = assembler;
+        _engine = engine;
+        _completer = completer;
+        _time = time;
+    }
+
+    /// <summary>Handles one request.</summary>
+    public async Task<HookOutcome> HandleAsync(ServiceDefinition service, JsonElement body, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(service);
+        var request = HookRequestParser.Parse(body, service, out var problems);
+        if (request is null)
+        {
+            return new HookOutcome.Invalid(problems);
+        }
+
+        var now = _time.GetUtcNow();
+        var values = new List<PrefetchValue>();
+        var toFetch = new List<string>();
+        foreach (var key in service.PrefetchKeys)
+        {
+            if (!request.Prefetch.TryGetValue(key, out var raw))
+            {
+                toFetch.Add(key);
+                continue;
+            }
+
+            var value = _bundles.Read(key, raw, DataOrigin.Prefetch);
+            if (value.Kind == PrefetchValueKind.Failed)
+            {
+                toFetch.Add(key);
+            }
+
+            values.Add(value);
+        }
+
+        if (toFetch.Count > 0)
+        {
+            var fetched = await _completer.CompleteAsync(service, request, toFetch, cancellationToken).ConfigureAwait(false);
+            values.RemoveAll(v => toFetch.Contains(v.Key) && fetched.Any(f => f.Key == v.Key && f.Kind != PrefetchValueKind.Failed));
+            values.AddRange(fetched.Where(f => f.Kind != PrefetchValueKind.Failed || values.All(v => v.Key != f.Key)));
+        }
+
+        var missing = service.RequiredKeys
+            .Select(k => values.FirstOrDefault(v => v.Key == k))
+            .Where(v => v is null || v.Kind is PrefetchValueKind.Failed or PrefetchValueKind.Unusable)
+            .SelectMany(v => v?.Problems ?? [])
+            .ToList();
+        if (missing.Count > 0)
+        {
+            return new HookOutcome.MissingData(missing);
+        }
+
+        var contextResources = ContextResources(service, request);
+        var assembled = _assembler.Assemble(request.PatientId, now, values, contextResources.Resources);
+        var facts = assembled.Facts;
+        if (contextResources.Problems.Count > 0)
+        {
+            facts = facts with { DataNotes = [.. facts.DataNotes, .. contextResources.Problems] };
+        }
+
+        var decision = new DecisionRequest
+        {
+            Hook = service.Kind,
+            Facts = facts,
+            Now = now,
+            DraftOrders = assembled.DraftOrders,
+            SelectedOrders = Strings(request.Context, "selections"),
+            NewResultIds = contextResources.Resources
+                .Where(r => r.Source == "context.results" && r.Resource.Id is not null)
+                .Select(r => r.Resource.Id!)
+                .ToList(),
+        };
+        return new HookOutcome.Cards(_engine.Decide(decision), request.PatientId, now);
+    }
+
+    private (List<ParsedResource> Resources, List<string> Problems) ContextResources(ServiceDefinition service, HookRequest request)
+    {
+        var resources = new List<ParsedResource>();
+        var problems = new List<string>();
+        foreach (var field in service.Context.Where(f => f.Kind == ContextFieldKind.Bundle))
+        {
+            if (!request.Context.TryGetProperty(field.Name, out var bundle))
+            {
+                continue;
+            }
+
+            var value = _bundles.Read("context." + field.Name, bundle, DataOrigin.Context);
+            resources.AddRange(value.Resources.Select(r => r with { Source = "context." + field.Name }));
+            problems.AddRange(value.Problems.Select(p => p.Replace("prefetch 'context.", "context '", StringComparison.Ordinal)));
+        }
+
+        return (resources, problems);
+    }
+
+    private static IReadOnlyList<string> Strings(JsonElement context, string name)
+        => context.TryGetProperty(name, out var array) && array.ValueKind == JsonValueKind.Array
+            ? array.EnumerateArray().Where(e => e.ValueKind == JsonValueKind.String).Select(e => e.GetString()!).ToList()
+            : [];
+}
