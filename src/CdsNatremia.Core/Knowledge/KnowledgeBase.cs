@@ -1,3 +1,5 @@
+using CdsNatremia.Core.Facts;
+
 namespace CdsNatremia.Core.Knowledge;
 
 /// <summary>
@@ -8,8 +10,12 @@ public sealed class KnowledgeBase
     private readonly Dictionary<string, CodeSet> _sets;
 
     /// <summary>Creates a knowledge base from code sets; ids must be unique.</summary>
-    public KnowledgeBase(IEnumerable<CodeSet> sets, string version)
+    /// <param name="sets">The code sets (from ValueSets).</param>
+    /// <param name="version">A version covering every file loaded.</param>
+    /// <param name="codeSystems">Our own code systems by id (e.g. "override-reason"), each as its codes with displays.</param>
+    public KnowledgeBase(IEnumerable<CodeSet> sets, string version, IReadOnlyDictionary<string, IReadOnlyList<CodeRef>>? codeSystems = null)
     {
+        CodeSystems = codeSystems ?? new Dictionary<string, IReadOnlyList<CodeRef>>(StringComparer.Ordinal);
         _sets = new Dictionary<string, CodeSet>(StringComparer.Ordinal);
         foreach (var set in Guard.NotNull(sets, nameof(sets)))
         {
@@ -27,6 +33,9 @@ public sealed class KnowledgeBase
 
     /// <summary>A version string covering every loaded set (for audit: which knowledge produced a card).</summary>
     public string Version { get; }
+
+    /// <summary>Our own code systems by id, e.g. "override-reason" (codes with display).</summary>
+    public IReadOnlyDictionary<string, IReadOnlyList<CodeRef>> CodeSystems { get; }
 
     /// <summary>All sets.</summary>
     public IReadOnlyCollection<CodeSet> Sets => _sets.Values;

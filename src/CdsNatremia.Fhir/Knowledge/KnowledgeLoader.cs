@@ -58,7 +58,7 @@ public static class KnowledgeLoader
         }
 
         var digest = Convert.ToHexString(SHA256.HashData(Encoding.UTF8.GetBytes(hash.ToString())))[..12].ToLowerInvariant();
-        return new LoadedKnowledge(new KnowledgeBase(sets, "knowledge-" + digest), systems, directory);
+        return new LoadedKnowledge(new KnowledgeBase(sets, "knowledge-" + digest, systems), systems, directory);
     }
 
     private static IEnumerable<string> Files(string directory, string sub)
