@@ -16,7 +16,11 @@ public sealed class ServiceCatalog
         PrefetchKeys.Conditions, PrefetchKeys.MedicationStatements, PrefetchKeys.MedicationRequests,
     ];
 
-    private static readonly string[] Required = [PrefetchKeys.Patient, PrefetchKeys.Sodium];
+    /// <summary>
+    /// Only the sodium series is required: without it there is nothing to assess (412). Everything else is optional;
+    /// when it is missing the card says what it could not use (e.g. no Patient → no age or sex for body water).
+    /// </summary>
+    private static readonly string[] Required = [PrefetchKeys.Sodium];
 
     private readonly Dictionary<string, ServiceDefinition> _byId;
 

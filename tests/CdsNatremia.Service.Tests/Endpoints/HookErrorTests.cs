@@ -101,6 +101,17 @@ public class HookErrorTests(NatremiaFactory factory) : IClassFixture<NatremiaFac
     }
 
     [Fact]
+    public async Task OptionalPrefetchAbsent_CardSaysWhatItCouldNotUse()
+    {
+        var body = Valid();
+        body["prefetch"]!.AsObject().Remove("patient");
+        var cards = await HookCalls.CardsAsync(await HookCalls.PostAsync(factory.CreateClient(), Service, body));
+        var detail = (string)cards.First()!["detail"]!;
+        Assert.Contains("Data the service could not use", detail, StringComparison.Ordinal);
+        Assert.Contains("prefetch 'patient'", detail, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task RequiredPrefetchNull_MeansNoData_NoCard()
     {
         var body = Valid();
