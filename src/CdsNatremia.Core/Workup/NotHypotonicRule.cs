@@ -133,8 +133,28 @@ public sealed class NotHypotonicRule : IAssessmentRule
         card.Findings.Add(Invariant.Format($"This is **not hypotonic hyponatremia**: the measured osmolality is normal; the low sodium may be an artefact (pseudohyponatremia){cause}."));
         card.Differential.Add("Pseudohyponatremia (very high triglycerides or paraprotein/total protein).");
         card.Differential.Add("Isotonic hyponatremia from other effective osmoles (glucose, mannitol, glycine or sorbitol irrigation fluid).");
+        // A whole-blood (blood-gas) sodium is measured by direct ion-selective electrode, which lipids and proteins do not disturb.
+        var direct = t.Sodium.IsWholeBlood
+            ? t.Sodium
+            : context.Sodium.Results.Where(r => r.IsWholeBlood && Math.Abs((r.EffectiveAt - at).TotalHours) <= options.PairedWithinHours).LastOrDefault();
+        if (direct is not null)
+        {
+            card.ResourcesUsed.Add(direct.Reference);
+            var normal = direct.Value >= context.Thresholds.NormalFrom;
+            card.Steps.Add(Invariant.Format(
+                $"**Direct sodium**: {Cite.Result(direct)} is a whole-blood (direct ion-selective electrode) value: {(normal ? "it is **normal**, which supports an artefact" : "it is also low, so the low sodium is **real** and an artefact is unlikely; look for another effective osmole")}."));
+            if (!normal)
+            {
+                card.OfferSummaryAction(SummaryPriority, "normal osmolality but low direct sodium: look for other osmoles");
+                return;
+            }
+        }
+        else
+        {
+            card.Suggest(LabOrders.AsSuggestion(LabOrders.BloodSodium("Normal measured osmolality with a low laboratory sodium: a direct ion-selective electrode sodium tells an artefact from true hyponatremia."), recommended: true));
+        }
+
         card.NextSteps.Add("Confirm with a direct ion-selective electrode sodium (for example on a blood-gas analyser). If it is normal, the low value is an artefact and **no sodium treatment is indicated** for it; look after the lipid or protein disorder instead.");
-        card.Suggest(LabOrders.AsSuggestion(LabOrders.BloodSodium("Normal measured osmolality with a low laboratory sodium: a direct ion-selective electrode sodium tells an artefact from true hyponatremia."), recommended: true));
         card.OfferSummaryAction(SummaryPriority, "normal osmolality: possible artefact, check a direct-ISE (blood-gas) sodium");
     }
 

@@ -20,8 +20,13 @@ public sealed class OnsetRule : IAssessmentRule
         Guard.NotNull(context, nameof(context));
         var latest = context.Sodium.Latest!;
         var thresholds = context.Thresholds;
+        var paired = context.Options.Workup.PairedWithinHours;
+
+        // A normal blood-gas value beside a low laboratory value (or the reverse) within the pairing window is a question of
+        // method (pseudohyponatremia), not of onset: such a pair is not read as a fall.
         return context.Sodium.Results
             .Where(r => r.EffectiveAt < latest.EffectiveAt && r.Value >= thresholds.NormalFrom && r.Value <= thresholds.NormalTo)
+            .Where(r => r.IsWholeBlood == latest.IsWholeBlood || (latest.EffectiveAt - r.EffectiveAt).TotalHours > paired)
             .LastOrDefault();
     }
 

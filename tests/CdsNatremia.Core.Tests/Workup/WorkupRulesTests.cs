@@ -89,6 +89,19 @@ public class WorkupRulesTests
     }
 
     [Theory]
+    // A blood-gas sodium is a direct ion-selective electrode value, undisturbed by lipids or proteins (common practice).
+    [InlineData(138, true)]
+    [InlineData(128, false)]
+    public void Isotonic_PairedBloodGasSodium_DecidesArtefactOrReal(double bloodGasSodium, bool artefact)
+    {
+        var bloodGas = Some.Sodium(bloodGasSodium, hoursAgo: 2.5, specimen: SpecimenKind.ArterialBlood);
+        var card = Card(Facts([Some.Sodium(129), bloodGas, Lab(Analyte.SerumOsmolality, 288), Lab(Analyte.Glucose, 6.1), Lab(Analyte.Urea, 5)]));
+        Assert.Equal(artefact, card.Detail.Contains("which supports an artefact", StringComparison.Ordinal));
+        Assert.Equal(!artefact, card.Detail.Contains("the low sodium is **real**", StringComparison.Ordinal));
+        Assert.DoesNotContain(card.Suggestions, s => s.Actions[0].Create!.LoincCode == "2947-0"); // already measured: not offered again
+    }
+
+    [Theory]
     // 2014 European guideline: acute when documented < 48 h; chronic when ≥ 48 h or unknown (reference sheet, verified).
     [InlineData(47.9, true)]
     [InlineData(48, false)]
@@ -98,6 +111,16 @@ public class WorkupRulesTests
         var card = Card(Facts([.. Hypotonic(), Some.Sodium(140, hoursAgo: 2 + hoursBetween)]));
         Assert.Equal(acute, card.Detail.Contains("**acute**", StringComparison.Ordinal));
         Assert.Equal(!acute, card.Detail.Contains("**chronic or of unknown duration**", StringComparison.Ordinal));
+    }
+
+    [Theory]
+    // A normal blood-gas sodium just before a low laboratory one is a method question, not a fall; 13 h earlier it counts.
+    [InlineData(0.5, false)]
+    [InlineData(13, true)]
+    public void Onset_NormalBloodGasBesideLowLaboratoryValue_NotReadAsAFallWithinPairingWindow(double hoursBefore, bool acute)
+    {
+        var card = Card(Facts([.. Hypotonic(), Some.Sodium(139, hoursAgo: 2 + hoursBefore, specimen: SpecimenKind.VenousBlood)]));
+        Assert.Equal(acute, card.Detail.Contains("so **acute** hyponatremia", StringComparison.Ordinal));
     }
 
     [Fact]
