@@ -28,6 +28,11 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         var criteria = Evaluate(context, tonicity, UrineStudies.From(context));
         card.RuleIds.Add(RuleId);
         card.Sources.Add(WorkupSources.Siadh);
+        foreach (var used in new[] { Recent(context, Analyte.Thyrotropin, context.Options.Workup), Recent(context, Analyte.Cortisol, context.Options.Workup) }.OfType<LabResult>())
+        {
+            card.ResourcesUsed.Add(used.Reference);
+        }
+
         var met = criteria.Count(c => c.Status == CriterionStatus.Met);
         var notMet = criteria.Count(c => c.Status == CriterionStatus.NotMet);
         var unknown = criteria.Count(c => c.Status == CriterionStatus.Unknown);

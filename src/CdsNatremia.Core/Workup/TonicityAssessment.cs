@@ -159,5 +159,5 @@ public sealed record TonicityAssessment
     public static string CiteOrMissing(LabResult? result, string what) => result is null ? what + " not available" : Cite.Result(result);
 
     private static bool IsMgPerDl(LabResult? result)
-        => result?.OriginalUnit is { } unit && string.Equals(unit.Trim(), "mg/dL", StringComparison.OrdinalIgnoreCase);
+        => result?.OriginalValue is not null && result.OriginalUnit is { } unit && string.Equals(unit.Trim(), "mg/dL", StringComparison.OrdinalIgnoreCase);
 }

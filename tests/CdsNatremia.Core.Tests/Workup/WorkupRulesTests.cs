@@ -208,6 +208,23 @@ public class WorkupRulesTests
         Assert.DoesNotContain(card.Suggestions, s => s.Actions[0].Create!.LoincCode is "3016-3" or "2143-6");
     }
 
+    [Fact]
+    public void Siadh_EndocrineTestsUsed_ListedAmongResourcesUsed()
+    {
+        var card = Card(Facts([.. Hypotonic(), Lab(Analyte.Thyrotropin, 2.1, id: "tsh"), Lab(Analyte.Cortisol, 408, id: "cort")]));
+        Assert.Contains("Observation/tsh", card.ResourcesUsed);
+        Assert.Contains("Observation/cort", card.ResourcesUsed);
+    }
+
+    [Fact]
+    public void Tonicity_MgPerDlUnitWithoutOriginalValue_FallsBackToSiForm()
+    {
+        var glucose = Lab(Analyte.Glucose, 5.8) with { OriginalUnit = "mg/dL", LoincCode = "2345-7" };
+        var bun = Lab(Analyte.Urea, 5.7) with { OriginalUnit = "mg/dL", LoincCode = "3094-0" };
+        var card = Card(Facts([Some.Sodium(124), glucose, bun]));
+        Assert.Contains("(SI units: 2 × 124", card.Detail, StringComparison.Ordinal);
+    }
+
     [Theory]
     // TSH outside the laboratory's range fails "normal thyroid function" (SIADH criteria, reference sheet).
     [InlineData(4.0, "met")]
