@@ -1,3 +1,5 @@
+using CdsNatremia.Core.Workup;
+
 namespace CdsNatremia.Core.Assessment;
 
 /// <summary>The work-up rules, in the order a clinician reasons. Add a new work-up step here.</summary>
@@ -7,5 +9,12 @@ public static class AssessmentRules
     public static IReadOnlyList<IAssessmentRule> Default() =>
     [
         new SodiumSeverityRule(),
+        new TonicityRule(),
+        new NotHypotonicRule(),
+        new OnsetRule(),
+        new UrineStudiesRule(),
+        new VolumeCluesRule(),
+        new SiadhChecklistRule(),
+        new MissingTestsRule(),
     ];
 }

@@ -9,6 +9,10 @@ public static class LabOrders
     public static LabOrderProposal SerumSodium(string reason, double? withinHours = null)
         => new("2951-2", "Sodium, serum or plasma", reason, withinHours);
 
+    /// <summary>Sodium [Moles/volume] in Blood, LOINC 2947-0: a blood-gas (direct ion-selective electrode) sodium.</summary>
+    public static LabOrderProposal BloodSodium(string reason)
+        => new("2947-0", "Sodium, blood (blood gas, direct ion-selective electrode)", reason);
+
     /// <summary>Osmolality of Serum or Plasma, LOINC 2692-2.</summary>
     public static LabOrderProposal SerumOsmolality(string reason) => new("2692-2", "Osmolality, serum or plasma", reason);
 

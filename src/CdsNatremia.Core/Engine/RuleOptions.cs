@@ -1,4 +1,5 @@
 using CdsNatremia.Core.Sodium;
+using CdsNatremia.Core.Workup;
 
 namespace CdsNatremia.Core.Engine;
 
@@ -16,4 +17,7 @@ public sealed class RuleOptions
 
     /// <summary>Card indicator per band.</summary>
     public IndicatorOptions Indicators { get; set; } = new();
+
+    /// <summary>The hyponatremia work-up (tonicity, glucose, onset, urine studies, SIADH checklist).</summary>
+    public WorkupOptions Workup { get; set; } = new();
 }

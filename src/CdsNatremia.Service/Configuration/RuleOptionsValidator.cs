@@ -10,13 +10,23 @@ internal sealed class RuleOptionsValidator : IValidateOptions<RuleOptions>
     public ValidateOptionsResult Validate(string? name, RuleOptions options)
     {
         var failures = new List<string>();
-        foreach (var group in new object[] { options.Severity, options.Reading, options.Indicators })
+        foreach (var group in new object[] { options.Severity, options.Reading, options.Indicators, options.Workup })
         {
             var results = new List<ValidationResult>();
             if (!Validator.TryValidateObject(group, new ValidationContext(group), results, validateAllProperties: true))
             {
                 failures.AddRange(results.Select(r => $"Natremia:Rules:{group.GetType().Name.Replace("Options", string.Empty, StringComparison.Ordinal)}: {r.ErrorMessage}"));
             }
+        }
+
+        if (options.Workup.HypotonicBelow >= options.Workup.HypertonicAbove)
+        {
+            failures.Add("Natremia:Rules:Workup: HypotonicBelow must be below HypertonicAbove.");
+        }
+
+        if (options.Workup.ThyrotropinNormalFrom >= options.Workup.ThyrotropinNormalTo)
+        {
+            failures.Add("Natremia:Rules:Workup: ThyrotropinNormalFrom must be below ThyrotropinNormalTo.");
         }
 
         var t = options.Severity.Resolve();

@@ -1,0 +1,174 @@
+using CdsNatremia.Core.Assessment;
+using CdsNatremia.Core.Engine;
+using CdsNatremia.Core.Facts;
+
+namespace CdsNatremia.Core.Workup;
+
+/// <summary>
+/// Step 2 of the work-up: when the serum is not hypotonic, the low sodium is not a water excess. Normal measured
+/// osmolality → possible pseudohyponatremia (triglyceride, total protein, direct ion-selective electrode sodium); high
+/// osmolality with high glucose → glucose-corrected sodium by Katz and Hillier; high osmolality without high glucose → other
+/// osmoles. The band's indicator is kept (the number is still abnormal and the cause may itself be urgent), but the summary
+/// and the next steps say plainly that this is not hypotonic hyponatremia. A high glucose in hypotonic serum still gets its
+/// corrected sodium, since part of the fall is glucose.
+/// </summary>
+public sealed class NotHypotonicRule : IAssessmentRule
+{
+    /// <summary>Summary priority: above the band's own clause (≤ 40), below "stale, recheck" (50).</summary>
+    internal const int SummaryPriority = 45;
+
+    /// <inheritdoc />
+    public string RuleId => "workup.not-hypotonic";
+
+    /// <inheritdoc />
+    public void Apply(DecisionContext context, AssessmentBuilder card)
+    {
+        Guard.NotNull(context, nameof(context));
+        Guard.NotNull(card, nameof(card));
+        var options = context.Options.Workup;
+        var t = TonicityAssessment.From(context);
+        var spoke = false;
+
+        if (t.GlucoseIsHigh)
+        {
+            spoke = true;
+            GlucoseCorrection(t, options, card);
+        }
+
+        if (t.Band == Tonicity.Isotonic && t.Method == OsmolalityMethod.Measured)
+        {
+            spoke = true;
+            Pseudohyponatremia(context, t, options, card);
+        }
+        else if (t.Band == Tonicity.Hypertonic && !t.GlucoseIsHigh)
+        {
+            spoke = true;
+            OtherOsmoles(t, card);
+        }
+
+        if (spoke)
+        {
+            card.RuleIds.Add(RuleId);
+        }
+    }
+
+    private static void GlucoseCorrection(TonicityAssessment t, WorkupOptions options, AssessmentBuilder card)
+    {
+        var mgPerDl = t.GlucoseMgPerDl!.Value;
+        var na = t.Sodium.Value;
+        var katz = Math.Round(OsmolalityFormulas.KatzCorrectedSodium(na, mgPerDl), 1);
+        var hillier = Math.Round(OsmolalityFormulas.HillierCorrectedSodium(na, mgPerDl), 1);
+        var chosen = options.GlucoseCorrection == GlucoseCorrectionMethod.Katz ? katz : hillier;
+        var chosenName = options.GlucoseCorrection == GlucoseCorrectionMethod.Katz ? "Katz" : "Hillier";
+        card.Sources.Add(WorkupSources.Katz);
+        card.Sources.Add(WorkupSources.Hillier);
+        card.ResourcesUsed.Add(t.Glucose!.Reference);
+
+        var steep = mgPerDl > OsmolalityFormulas.HillierSteepAboveMgPerDl
+            ? Invariant.Format(
+                $" Above {Invariant.Number(OsmolalityFormulas.HillierSteepAboveMgPerDl)} mg/dL Hillier et al. found the fall steeper (about {Invariant.Number(OsmolalityFormulas.HillierSteepPer100MgPerDl)} mmol/L per 100 mg/dL); applied to the glucose above {Invariant.Number(OsmolalityFormulas.HillierSteepAboveMgPerDl)} mg/dL it gives {Invariant.Number(Math.Round(OsmolalityFormulas.HillierSteepCorrectedSodium(na, mgPerDl), 1))} mmol/L, so the true value may be higher still.")
+            : string.Empty;
+        card.Steps.Add(Invariant.Format(
+            $"**Glucose-corrected sodium**: {Cite.Result(t.Glucose)} = {Invariant.Number(mgPerDl)} mg/dL. Katz (1.6 mmol/L per 100 mg/dL above 100): {Invariant.Number(na)} + 1.6 × ({Invariant.Number(mgPerDl)} − 100)/100 = **{Invariant.Number(katz)} mmol/L**. Hillier (2.4 per 100 mg/dL above 100): **{Invariant.Number(hillier)} mmol/L**.{steep} This service uses {chosenName} (configured)."));
+        card.Findings.Add(Invariant.Format($"Glucose {Invariant.Number(t.Glucose.Value)} mmol/L ({Invariant.Number(mgPerDl)} mg/dL): glucose-corrected sodium {Invariant.Number(katz)} (Katz) to {Invariant.Number(hillier)} mmol/L (Hillier)."));
+
+        if (t.Band == Tonicity.Hypertonic)
+        {
+            card.Findings.Add("This is **not hypotonic hyponatremia**: glucose holds water outside the cells and dilutes the sodium.");
+            card.NextSteps.Add(Invariant.Format(
+                $"Treat the hyperglycaemia and any volume deficit rather than the sodium (no treatment for the dilution itself); the sodium rises as glucose falls, towards the corrected value of about {Invariant.Number(chosen)} mmol/L, so recheck sodium and glucose together."));
+            card.Differential.Add("Hyperglycaemia (translocational, hypertonic hyponatremia).");
+            card.OfferSummaryAction(SummaryPriority, Invariant.Format($"hypertonic from glucose; corrected sodium {Invariant.Number(chosen)} mmol/L ({chosenName})"));
+        }
+        else
+        {
+            card.NextSteps.Add(Invariant.Format(
+                $"Part of the fall is from glucose; judge the severity on the corrected sodium of about {Invariant.Number(chosen)} mmol/L ({chosenName}) as well as the measured value."));
+        }
+    }
+
+    private static void Pseudohyponatremia(DecisionContext context, TonicityAssessment t, WorkupOptions options, AssessmentBuilder card)
+    {
+        var facts = context.Request.Facts;
+        var at = t.Sodium.EffectiveAt;
+        var triglyceride = WorkupData.Paired(facts, Analyte.Triglyceride, at, options.PairedWithinHours);
+        var protein = WorkupData.Paired(facts, Analyte.TotalProtein, at, options.PairedWithinHours);
+        card.Sources.Add(WorkupSources.CommonPractice);
+
+        var clues = new List<string>();
+        var checks = new List<string>();
+        if (triglyceride is not null)
+        {
+            card.ResourcesUsed.Add(triglyceride.Reference);
+            var high = triglyceride.Value >= options.HighTriglycerideFrom;
+            checks.Add(Invariant.Format($"{Cite.Result(triglyceride)}: {(high ? "**very high**" : "not high enough to explain it")} (threshold {Invariant.Number(options.HighTriglycerideFrom)} mmol/L, about 1000 mg/dL: from memory)"));
+            if (high)
+            {
+                clues.Add("very high triglycerides");
+            }
+        }
+        else
+        {
+            checks.Add("triglyceride not available");
+        }
+
+        if (protein is not null)
+        {
+            card.ResourcesUsed.Add(protein.Reference);
+            var high = protein.Value >= options.HighTotalProteinFrom;
+            checks.Add(Invariant.Format($"{Cite.Result(protein)}: {(high ? "**very high**" : "not high enough to explain it")} (threshold {Invariant.Number(options.HighTotalProteinFrom)} g/L: from memory)"));
+            if (high)
+            {
+                clues.Add("very high total protein");
+            }
+        }
+        else
+        {
+            checks.Add("total protein not available");
+        }
+
+        var cause = clues.Count > 0 ? " with " + string.Join(" and ", clues) : string.Empty;
+        card.Steps.Add(Invariant.Format(
+            $"**Normal measured osmolality with a low sodium**: possible **pseudohyponatremia**{cause}, a laboratory artefact of indirect ion-selective electrode methods when lipids or proteins take up plasma volume. Checked: {string.Join("; ", checks)}."));
+        card.Findings.Add(Invariant.Format($"This is **not hypotonic hyponatremia**: the measured osmolality is normal; the low sodium may be an artefact (pseudohyponatremia){cause}."));
+        card.Differential.Add("Pseudohyponatremia (very high triglycerides or paraprotein/total protein).");
+        card.Differential.Add("Isotonic hyponatremia from other effective osmoles (glucose, mannitol, glycine or sorbitol irrigation fluid).");
+        // A whole-blood (blood-gas) sodium is measured by direct ion-selective electrode, which lipids and proteins do not disturb.
+        var direct = t.Sodium.IsWholeBlood
+            ? t.Sodium
+            : context.Sodium.Results.Where(r => r.IsWholeBlood && Math.Abs((r.EffectiveAt - at).TotalHours) <= options.PairedWithinHours).LastOrDefault();
+        if (direct is not null)
+        {
+            card.ResourcesUsed.Add(direct.Reference);
+            var normal = direct.Value >= context.Thresholds.NormalFrom;
+            card.Steps.Add(Invariant.Format(
+                $"**Direct sodium**: {Cite.Result(direct)} is a whole-blood (direct ion-selective electrode) value: {(normal ? "it is **normal**, which supports an artefact" : "it is also low, so the low sodium is **real** and an artefact is unlikely; look for another effective osmole")}."));
+            if (!normal)
+            {
+                card.OfferSummaryAction(SummaryPriority, "normal osmolality but low direct sodium: look for other osmoles");
+                return;
+            }
+        }
+        else
+        {
+            card.Suggest(LabOrders.AsSuggestion(LabOrders.BloodSodium("Normal measured osmolality with a low laboratory sodium: a direct ion-selective electrode sodium tells an artefact from true hyponatremia."), recommended: true));
+        }
+
+        card.NextSteps.Add("Confirm with a direct ion-selective electrode sodium (for example on a blood-gas analyser). If it is normal, the low value is an artefact and **no sodium treatment is indicated** for it; look after the lipid or protein disorder instead.");
+        card.OfferSummaryAction(SummaryPriority, "normal osmolality: possible artefact, check a direct-ISE (blood-gas) sodium");
+    }
+
+    private static void OtherOsmoles(TonicityAssessment t, AssessmentBuilder card)
+    {
+        var glucose = t.Glucose is null
+            ? "glucose is not available, so hyperglycaemia is not excluded"
+            : Invariant.Format($"glucose is not high ({Cite.Result(t.Glucose)})");
+        card.Sources.Add(WorkupSources.CommonPractice);
+        card.Steps.Add(Invariant.Format(
+            $"**High osmolality without high glucose**: {glucose}. Other osmoles that draw water out of cells and lower the sodium: **mannitol**, **glycine or sorbitol** irrigation fluid, **radiocontrast**, and, for the osmolality but not the tonicity, alcohols (ethanol, methanol, ethylene glycol) and a high urea."));
+        card.Findings.Add("This is **not hypotonic hyponatremia**: the serum osmolality is high; look for another osmole.");
+        card.Differential.Add("Hypertonic hyponatremia from mannitol, irrigation fluids or contrast; raised osmolality from alcohols or urea.");
+        card.NextSteps.Add("Review recent infusions, surgery with irrigation, contrast studies and alcohol or toxic-alcohol exposure; treat the cause rather than the sodium.");
+        card.OfferSummaryAction(SummaryPriority, "high osmolality without high glucose: look for other osmoles");
+    }
+}

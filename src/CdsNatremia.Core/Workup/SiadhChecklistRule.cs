@@ -1,0 +1,134 @@
+using CdsNatremia.Core.Assessment;
+using CdsNatremia.Core.Engine;
+using CdsNatremia.Core.Facts;
+
+namespace CdsNatremia.Core.Workup;
+
+/// <summary>
+/// Step 6 of the work-up: the SIADH essential criteria (as commonly listed after Schwartz–Bartter and Janicic &amp; Verbalis;
+/// reference sheet), each met, not met or unknown with the data behind it; euvolaemia is always left to the clinician.
+/// The checklist is shown for hypotonic or not-yet-known tonicity only.
+/// </summary>
+public sealed class SiadhChecklistRule : IAssessmentRule
+{
+    /// <inheritdoc />
+    public string RuleId => "workup.siadh";
+
+    /// <inheritdoc />
+    public void Apply(DecisionContext context, AssessmentBuilder card)
+    {
+        Guard.NotNull(context, nameof(context));
+        Guard.NotNull(card, nameof(card));
+        var tonicity = TonicityAssessment.From(context);
+        if (tonicity.Band is Tonicity.Isotonic or Tonicity.Hypertonic)
+        {
+            return;
+        }
+
+        var criteria = Evaluate(context, tonicity, UrineStudies.From(context));
+        card.RuleIds.Add(RuleId);
+        card.Sources.Add(WorkupSources.Siadh);
+        foreach (var used in new[] { Recent(context, Analyte.Thyrotropin, context.Options.Workup), Recent(context, Analyte.Cortisol, context.Options.Workup) }.OfType<LabResult>())
+        {
+            card.ResourcesUsed.Add(used.Reference);
+        }
+
+        var met = criteria.Count(c => c.Status == CriterionStatus.Met);
+        var notMet = criteria.Count(c => c.Status == CriterionStatus.NotMet);
+        var unknown = criteria.Count(c => c.Status == CriterionStatus.Unknown);
+        var verdict = notMet > 0
+            ? "SIADH cannot be diagnosed on these data while a criterion is not met"
+            : unknown > 0
+                ? "SIADH is neither shown nor excluded: some criteria lack data"
+                : "the data are **consistent with SIADH** if the clinician finds the patient euvolaemic";
+        var lines = string.Join(" ", criteria.Select((c, i) => Invariant.Format($"({i + 1}) {c.Name}: **{c.StatusText}**: {c.Data}.")));
+        card.Steps.Add(Invariant.Format(
+            $"**SIADH essential criteria**: {met} met, {notMet} not met, {unknown} unknown, euvolaemia for the clinician; {verdict}. {lines}"));
+        if (notMet == 0 && unknown == 0)
+        {
+            card.Findings.Add("SIADH essential criteria met on the data (euvolaemia to be confirmed by the clinician).");
+            card.NextSteps.Add("If SIADH is confirmed, fluid restriction is the usual first step; look for its cause (drugs, lung or intracranial disease, cancer, pain, nausea) and keep the correction within the limits.");
+        }
+    }
+
+    /// <summary>The essential criteria in the usual order.</summary>
+    public static IReadOnlyList<SiadhCriterion> Evaluate(DecisionContext context, TonicityAssessment tonicity, UrineStudies urine)
+    {
+        Guard.NotNull(context, nameof(context));
+        Guard.NotNull(tonicity, nameof(tonicity));
+        Guard.NotNull(urine, nameof(urine));
+        var options = context.Options.Workup;
+        var list = new List<SiadhCriterion>();
+
+        var hypo = Invariant.Format($"Effective serum osmolality < {Invariant.Number(options.HypotonicBelow)} mOsm/kg");
+        list.Add(tonicity.Effective is { } effective
+            ? new SiadhCriterion(hypo, effective < options.HypotonicBelow ? CriterionStatus.Met : CriterionStatus.NotMet,
+                Invariant.Format($"{Invariant.Number(effective)} mOsm/kg ({(tonicity.Method == OsmolalityMethod.Measured ? "from " + Cite.Result(tonicity.Measured!) : "calculated")})"))
+            : new SiadhCriterion(hypo, CriterionStatus.Unknown, "no serum osmolality"));
+
+        var uosmName = Invariant.Format($"Urine osmolality > {Invariant.Number(options.DiluteUrineAtOrBelow)} mOsm/kg");
+        list.Add(urine.Osmolality is { } uosm
+            ? new SiadhCriterion(uosmName, uosm.Value > options.DiluteUrineAtOrBelow ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(uosm))
+            : new SiadhCriterion(uosmName, CriterionStatus.Unknown, "no urine osmolality"));
+
+        var unaName = Invariant.Format($"Urine sodium > {Invariant.Number(options.LowUrineSodiumAtOrBelow)} mmol/L on normal salt and water intake");
+        list.Add(urine.Sodium is { } una
+            ? new SiadhCriterion(unaName, una.Value > options.LowUrineSodiumAtOrBelow ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(una))
+            : new SiadhCriterion(unaName, CriterionStatus.Unknown, "no urine sodium"));
+
+        list.Add(new SiadhCriterion("Clinical euvolaemia", CriterionStatus.ClinicianToAssess, "the service cannot examine the patient (see the volume clues)"));
+        list.Add(Thyroid(context, options));
+        list.Add(Adrenal(context, options));
+        list.Add(Diuretics(context, urine));
+        return list;
+    }
+
+    private static SiadhCriterion Thyroid(DecisionContext context, WorkupOptions options)
+    {
+        const string name = "Normal thyroid function";
+        var tsh = Recent(context, Analyte.Thyrotropin, options);
+        if (tsh is null)
+        {
+            return new SiadhCriterion(name, CriterionStatus.Unknown, Invariant.Format($"no TSH within {Invariant.Number(options.EndocrineTestMaxAgeDays)} days"));
+        }
+
+        var low = tsh.ReferenceLow ?? options.ThyrotropinNormalFrom;
+        var high = tsh.ReferenceHigh ?? options.ThyrotropinNormalTo;
+        var range = Invariant.Format($"reference {Invariant.Number(low)}–{Invariant.Number(high)} mIU/L{(tsh.ReferenceHigh is null ? ", default range: from memory" : ", laboratory range")}");
+        var normal = tsh.Value >= low && tsh.Value <= high;
+        return new SiadhCriterion(name, normal ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(tsh) + "; " + range);
+    }
+
+    private static SiadhCriterion Adrenal(DecisionContext context, WorkupOptions options)
+    {
+        const string name = "Normal adrenal function";
+        var cortisol = Recent(context, Analyte.Cortisol, options);
+        if (cortisol is null)
+        {
+            return new SiadhCriterion(name, CriterionStatus.Unknown, Invariant.Format($"no cortisol within {Invariant.Number(options.EndocrineTestMaxAgeDays)} days"));
+        }
+
+        var low = cortisol.ReferenceLow ?? options.CortisolNormalFrom;
+        var source = cortisol.ReferenceLow is null ? "default lower limit: from memory" : "laboratory lower limit";
+        var normal = cortisol.Value >= low;
+        var caveat = normal ? "; a single value in range does not fully exclude adrenal insufficiency (timing matters; a stimulation test settles doubt)" : string.Empty;
+        return new SiadhCriterion(name, normal ? CriterionStatus.Met : CriterionStatus.NotMet,
+            Invariant.Format($"{Cite.Result(cortisol)}; lower limit {Invariant.Number(low)} nmol/L ({source}){caveat}"));
+    }
+
+    private static SiadhCriterion Diuretics(DecisionContext context, UrineStudies urine)
+    {
+        const string name = "No recent diuretic use";
+        if (urine.Diuretics.Count > 0)
+        {
+            return new SiadhCriterion(name, CriterionStatus.NotMet, string.Join("; ", urine.Diuretics.Select(d => d.Describe())));
+        }
+
+        return WorkupData.MedicationsUnreadable(context.Request.Facts)
+            ? new SiadhCriterion(name, CriterionStatus.Unknown, "the medication list could not be read")
+            : new SiadhCriterion(name, CriterionStatus.Met, "no diuretic in the medication record (confirm with the patient)");
+    }
+
+    private static LabResult? Recent(DecisionContext context, Analyte analyte, WorkupOptions options)
+        => WorkupData.NewestSince(context.Request.Facts, analyte, context.Request.Now.AddDays(-options.EndocrineTestMaxAgeDays));
+}

@@ -1,0 +1,17 @@
+namespace CdsNatremia.Core.Workup;
+
+/// <summary>One SIADH essential criterion with its state and the data behind it (card Markdown, already escaped).</summary>
+/// <param name="Name">The criterion, e.g. "Effective serum osmolality &lt; 275 mOsm/kg".</param>
+/// <param name="Status">Met, not met, unknown or for the clinician.</param>
+/// <param name="Data">The data it rests on.</param>
+public sealed record SiadhCriterion(string Name, CriterionStatus Status, string Data)
+{
+    /// <summary>The state as cards print it.</summary>
+    public string StatusText => Status switch
+    {
+        CriterionStatus.Met => "met",
+        CriterionStatus.NotMet => "not met",
+        CriterionStatus.Unknown => "unknown",
+        _ => "for the clinician to assess",
+    };
+}

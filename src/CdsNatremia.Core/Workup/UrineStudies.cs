@@ -1,0 +1,71 @@
+using CdsNatremia.Core.Assessment;
+using CdsNatremia.Core.Engine;
+using CdsNatremia.Core.Facts;
+
+namespace CdsNatremia.Core.Workup;
+
+/// <summary>
+/// The spot urine osmolality and sodium that go with the assessed sodium: the newest of each taken no more than
+/// <see cref="WorkupOptions.UrineUsableBeforeSodiumHours"/> before it, each with the labels a reader needs (taken long
+/// before or after the serum sodium; taken while a diuretic was in use).
+/// </summary>
+public sealed record UrineStudies
+{
+    /// <summary>Urine osmolality, or null.</summary>
+    public LabResult? Osmolality { get; init; }
+
+    /// <summary>Urine sodium, or null.</summary>
+    public LabResult? Sodium { get; init; }
+
+    /// <summary>Diuretics in the record.</summary>
+    public IReadOnlyList<DiureticExposure> Diuretics { get; init; } = [];
+
+    /// <summary>True when urine osmolality is at or below the dilute cut-off.</summary>
+    public bool IsDilute { get; init; }
+
+    /// <summary>Diuretics in use when the urine sodium was taken (or whose start time is unknown).</summary>
+    public IReadOnlyList<DiureticExposure> DiureticsAtUrineSodium { get; init; } = [];
+
+    /// <summary>Finds the urine studies for the context's latest sodium.</summary>
+    public static UrineStudies From(DecisionContext context)
+    {
+        Guard.NotNull(context, nameof(context));
+        var options = context.Options.Workup;
+        var sodium = context.Sodium.Latest ?? throw new InvalidOperationException("The work-up needs a sodium result.");
+        var from = sodium.EffectiveAt.AddHours(-options.UrineUsableBeforeSodiumHours);
+        var facts = context.Request.Facts;
+        var osmolality = WorkupData.NewestSince(facts, Analyte.UrineOsmolality, from);
+        var urineSodium = WorkupData.NewestSince(facts, Analyte.UrineSodium, from);
+        var diuretics = DiureticExposure.Find(context);
+        return new UrineStudies
+        {
+            Osmolality = osmolality,
+            Sodium = urineSodium,
+            Diuretics = diuretics,
+            IsDilute = osmolality is not null && osmolality.Value <= options.DiluteUrineAtOrBelow,
+            DiureticsAtUrineSodium = urineSodium is null ? [] : diuretics.Where(d => d.InUseAt(urineSodium.EffectiveAt)).ToList(),
+        };
+    }
+
+    /// <summary>The result cited with its labels (timing against the serum sodium, diuretic in use).</summary>
+    public string CiteWithLabels(LabResult urine, LabResult serumSodium, WorkupOptions options)
+    {
+        Guard.NotNull(urine, nameof(urine));
+        Guard.NotNull(serumSodium, nameof(serumSodium));
+        Guard.NotNull(options, nameof(options));
+        var labels = new List<string>();
+        if (Math.Abs((urine.EffectiveAt - serumSodium.EffectiveAt).TotalHours) > options.UrineLabelAfterHours)
+        {
+            labels.Add(Invariant.Format(
+                $"**taken {WorkupData.Offset(urine.EffectiveAt, serumSodium.EffectiveAt)} the serum sodium**, more than {Invariant.Number(options.UrineLabelAfterHours)} h apart: it may not reflect the same state"));
+        }
+
+        var onDiuretic = Diuretics.Where(d => d.InUseAt(urine.EffectiveAt)).ToList();
+        if (onDiuretic.Count > 0)
+        {
+            labels.Add("**taken while a diuretic was in use**: " + string.Join("; ", onDiuretic.Select(d => d.Describe())));
+        }
+
+        return labels.Count == 0 ? Cite.Result(urine) : Cite.Result(urine) + " [" + string.Join("; ", labels) + "]";
+    }
+}
