@@ -14,13 +14,25 @@ public sealed class PostgresAuditStore : SqlAuditStore
     /// <summary>The advisory lock key that serialises migrations (an arbitrary constant of this schema).</summary>
     private const long MigrationLockKey = 0x4E61_7472_656D_6961; // "Natremia"
 
+    /// <summary>
+    /// Pool size when the connection string sets none: 20 connections per instance, so a handful of instances stay
+    /// well inside PostgreSQL's default of 100 connections; bursts queue for a free connection instead of failing.
+    /// </summary>
+    public const int DefaultMaxPoolSize = 20;
+
     private readonly NpgsqlDataSource _dataSource;
 
     /// <summary>Creates the store from a connection string.</summary>
     public PostgresAuditStore(string connectionString)
     {
         ArgumentException.ThrowIfNullOrEmpty(connectionString);
-        _dataSource = NpgsqlDataSource.Create(connectionString);
+        var builder = new NpgsqlConnectionStringBuilder(connectionString);
+        if (!new[] { "max pool size", "maximum pool size", "maxpoolsize" }.Any(k => connectionString.Contains(k, StringComparison.OrdinalIgnoreCase)))
+        {
+            builder.MaxPoolSize = DefaultMaxPoolSize;
+        }
+
+        _dataSource = NpgsqlDataSource.Create(builder);
     }
 
     /// <inheritdoc />

@@ -354,6 +354,13 @@ public abstract class SqlAuditStore : IAuditStore
         return values;
     }
 
+    /// <summary>Runs one query and returns its first value (tests read the schema version and pragmas with it).</summary>
+    internal async Task<object?> QueryScalarAsync(string sql, CancellationToken cancellationToken)
+    {
+        await using var connection = await OpenAsync(cancellationToken).ConfigureAwait(false);
+        return await ScalarAsync(connection, null, sql, cancellationToken).ConfigureAwait(false);
+    }
+
     /// <inheritdoc />
     public abstract ValueTask DisposeAsync();
 
