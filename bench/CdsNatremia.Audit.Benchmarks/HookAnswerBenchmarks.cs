@@ -34,6 +34,16 @@ public class HookAnswerBenchmarks
     public void Setup()
     {
         _folder = Path.Combine(Path.GetTempPath(), "natremia-bench", Guid.NewGuid().ToString("N"));
+        // The factory looks for the service's folder relative to the working directory; name it from the checkout.
+        var root = new DirectoryInfo(AppContext.BaseDirectory);
+        while (root is not null && !File.Exists(Path.Combine(root.FullName, "CdsNatremia.sln")))
+        {
+            root = root.Parent;
+        }
+
+        Environment.SetEnvironmentVariable(
+            "ASPNETCORE_TEST_CONTENTROOT_CDSNATREMIA_SERVICE",
+            Path.Combine(root?.FullName ?? ".", "src", "CdsNatremia.Service"));
         _factory = new WebApplicationFactory<Program>().WithWebHostBuilder(b =>
         {
             b.UseEnvironment("Development");

@@ -63,7 +63,17 @@ internal static class FeedbackEndpoints
                 return Problems.Of(StatusCodes.Status400BadRequest, "Invalid CDS Hooks feedback", problems);
             }
 
-            var result = await store.RecordFeedbackAsync(service.Id, entries, now, cancellationToken).ConfigureAwait(false);
+            FeedbackResult result;
+            try
+            {
+                result = await store.RecordFeedbackAsync(service.Id, entries, now, cancellationToken).ConfigureAwait(false);
+            }
+            catch (Exception ex) when (ex is System.Data.Common.DbException or IOException or TimeoutException)
+            {
+                // Not the client's fault, and nothing was stored: tell it to send the same feedback again later.
+                return Problems.Of(StatusCodes.Status503ServiceUnavailable, "Audit trail unavailable", ["The feedback could not be stored now; nothing was recorded. Send it again shortly."]);
+            }
+
             return result switch
             {
                 FeedbackResult.Stored => TypedResults.Ok(),

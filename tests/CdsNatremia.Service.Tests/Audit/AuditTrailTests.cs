@@ -123,6 +123,20 @@ public sealed class AuditTrailTests
         Assert.DoesNotContain("\"cards\"", await response.Content.ReadAsStringAsync(), StringComparison.Ordinal);
     }
 
+    [Fact]
+    public async Task AuditStoreDown_Feedback503()
+    {
+        await using var factory = new NatremiaFactory();
+        using var broken = factory.WithWebHostBuilder(b => b.ConfigureTestServices(s =>
+        {
+            s.RemoveAll<IAuditStore>();
+            s.AddSingleton<IAuditStore, UnavailableStore>();
+        }));
+
+        var body = FeedbackCalls.Body(FeedbackCalls.Overridden(Guid.NewGuid().ToString(), factory.Clock.GetUtcNow()));
+        Assert.Equal(HttpStatusCode.ServiceUnavailable, (await FeedbackCalls.PostAsync(broken.CreateClient(), body)).StatusCode);
+    }
+
     private sealed class UnavailableException() : DbException("The audit database is unreachable.");
 
     private sealed class UnavailableStore : IAuditStore
