@@ -1,6 +1,7 @@
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Fhir.Knowledge;
 using CdsNatremia.Fhir.Reading;
+using CdsNatremia.Service.Audit;
 using CdsNatremia.Service.Endpoints;
 using CdsNatremia.Service.Hooks;
 using CdsNatremia.Service.Knowledge;
@@ -42,6 +43,7 @@ public static class ServiceRegistration
             CardProducers.Default(),
             sp.GetRequiredService<IOptions<RuleOptions>>().Value,
             sp.GetRequiredService<LoadedKnowledge>().Base));
+        builder.AddNatremiaAudit();
         return builder;
     }
 
@@ -54,6 +56,8 @@ public static class ServiceRegistration
         app.MapDiscovery();
         app.MapHooks();
         app.MapHealth();
+        app.MapFeedback();
+        app.MapAdminReports();
         return app;
     }
 }

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using System.Text.Json.Nodes;
+using CdsNatremia.Service.Audit;
 using CdsNatremia.Service.Configuration;
 using CdsNatremia.Service.Hooks;
 using Microsoft.AspNetCore.Http.HttpResults;
@@ -22,6 +23,7 @@ internal static class HookEndpoints
         ServiceCatalog catalog,
         HookHandler handler,
         CardResponseWriter writer,
+        CardAudit audit,
         IOptions<NatremiaServiceOptions> options,
         CancellationToken cancellationToken)
     {
@@ -58,11 +60,32 @@ internal static class HookEndpoints
                 case HookOutcome.MissingData missing:
                     return Problems.Of(StatusCodes.Status412PreconditionFailed, "Required data not available", missing.Problems);
                 case HookOutcome.Cards cards:
-                    var (body, _) = writer.Write(cards.Items, cards.PatientId, cards.Now);
+                    var (body, issued) = writer.Write(cards.Items, cards.PatientId, cards.Now);
+                    // The audit record is committed before the answer leaves: no answered card without its record (docs/audit.md).
+                    if (!await AuditRecorded(audit, service, document.RootElement, cards, issued, cancellationToken).ConfigureAwait(false))
+                    {
+                        return Problems.Of(StatusCodes.Status503ServiceUnavailable, "Audit trail unavailable", ["The cards could not be recorded in the audit trail, so none are shown; try again shortly."]);
+                    }
+
                     return TypedResults.Ok(body);
                 default:
                     throw new InvalidOperationException("Unknown hook outcome.");
             }
+        }
+    }
+
+    private static async Task<bool> AuditRecorded(CardAudit audit, ServiceDefinition service, JsonElement root, HookOutcome.Cards cards, IReadOnlyList<IssuedCard> issued, CancellationToken cancellationToken)
+    {
+        try
+        {
+            // The parser has already validated hookInstance as a UUID.
+            var hookInstance = root.GetProperty("hookInstance").GetGuid();
+            await audit.RecordAsync(service, hookInstance, cards.PatientId, cards.Now, issued, cancellationToken).ConfigureAwait(false);
+            return true;
+        }
+        catch (Exception ex) when (ex is System.Data.Common.DbException or IOException or TimeoutException)
+        {
+            return false;
         }
     }
 

@@ -29,9 +29,13 @@ public sealed class NatremiaFactory : WebApplicationFactory<Program>
 
     public FakeTimeProvider Clock { get; } = new(ScenarioLibrary.Anchor);
 
+    /// <summary>A fresh audit data folder per factory, so tests never write into the source tree or share a database.</summary>
+    public string AuditDataDirectory { get; } = Path.Combine(Path.GetTempPath(), "natremia-tests", Guid.NewGuid().ToString("N"));
+
     protected override void ConfigureWebHost(IWebHostBuilder builder)
     {
         builder.UseEnvironment("Development");
+        builder.UseSetting("Natremia:Audit:DataDirectory", AuditDataDirectory);
         foreach (var (key, value) in _settings)
         {
             builder.UseSetting(key, value);

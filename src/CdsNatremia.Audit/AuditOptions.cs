@@ -1,0 +1,54 @@
+using System.ComponentModel.DataAnnotations;
+
+namespace CdsNatremia.Audit;
+
+/// <summary>Audit trail settings, bound from the "Natremia:Audit" configuration section.</summary>
+public sealed class AuditOptions
+{
+    /// <summary>The configuration section.</summary>
+    public const string Section = "Natremia:Audit";
+
+    /// <summary>
+    /// Folder for the embedded SQLite database and, in Development only, the generated pseudonym key. Relative paths
+    /// are taken from the content root. Default "data" (so <c>data/audit.db</c> under the content root).
+    /// </summary>
+    [Required]
+    public string DataDirectory { get; set; } = "data";
+
+    /// <summary>SQLite file name inside <see cref="DataDirectory"/>. Default "audit.db".</summary>
+    [Required]
+    [RegularExpression("^[A-Za-z0-9._-]+$")]
+    public string SqliteFileName { get; set; } = "audit.db";
+
+    /// <summary>
+    /// PostgreSQL connection string. When set, the audit goes to PostgreSQL instead of SQLite (several service
+    /// instances behind a load balancer share it). Default: not set.
+    /// </summary>
+    public string? PostgresConnectionString { get; set; }
+
+    /// <summary>
+    /// Secret key for the patient pseudonym (HMAC-SHA256 of the patient id), at least 32 characters. Required outside
+    /// Development; in Development a random key is generated once and kept in <c>{DataDirectory}/pseudonym.key</c>.
+    /// Changing it breaks the link between old and new pseudonyms of the same patient.
+    /// </summary>
+    [MinLength(32)]
+    public string? PseudonymKey { get; set; }
+
+    /// <summary>
+    /// Days an issued-card record and its feedback are kept before the purge deletes them. Default 730 (two years),
+    /// a neutral starting point: each site sets its own records-retention period.
+    /// </summary>
+    [Range(1, 36500)]
+    public int RetentionDays { get; set; } = 730;
+
+    /// <summary>Hours between two purges by the background service. Default 24.</summary>
+    [Range(1, 24 * 31)]
+    public int PurgeIntervalHours { get; set; } = 24;
+
+    /// <summary>
+    /// Key an administrator sends in the <c>X-Natremia-Admin-Key</c> header to read reports, at least 32 characters.
+    /// Default: not set, and then the report endpoint refuses every call.
+    /// </summary>
+    [MinLength(32)]
+    public string? AdminApiKey { get; set; }
+}

@@ -1,0 +1,58 @@
+namespace CdsNatremia.Audit.Storage;
+
+/// <summary>
+/// The schema, as numbered migrations applied in order at start-up and recorded in <c>schema_version</c>. The SQL is
+/// the common subset of SQLite and PostgreSQL (TEXT, BIGINT, ON CONFLICT), so both databases hold the same tables.
+/// Times are BIGINT milliseconds since 1970-01-01 UTC; uuids are lowercase text; lists are JSON text.
+/// A new version is appended here, never an old one edited.
+/// </summary>
+internal static class AuditSchema
+{
+    public const string VersionTable = "CREATE TABLE IF NOT EXISTS schema_version (version INTEGER NOT NULL PRIMARY KEY, applied_at_ms BIGINT NOT NULL)";
+
+    public static IReadOnlyList<(int Version, string[] Statements)> Migrations { get; } =
+    [
+        (1,
+        [
+            """
+            CREATE TABLE issued_card (
+                card_uuid TEXT NOT NULL PRIMARY KEY,
+                service_id TEXT NOT NULL,
+                hook TEXT NOT NULL,
+                hook_instance TEXT NOT NULL,
+                patient_pseudonym TEXT NOT NULL,
+                rule_ids TEXT NOT NULL,
+                knowledge_version TEXT NOT NULL,
+                software_version TEXT NOT NULL,
+                indicator TEXT NOT NULL,
+                topic TEXT NOT NULL,
+                summary TEXT NOT NULL,
+                resources_used TEXT NOT NULL,
+                suggestion_uuids TEXT NOT NULL,
+                issued_at_ms BIGINT NOT NULL)
+            """,
+            "CREATE INDEX ix_issued_card_issued_at ON issued_card (issued_at_ms)",
+            "CREATE TABLE card_rule (card_uuid TEXT NOT NULL, rule_id TEXT NOT NULL, PRIMARY KEY (card_uuid, rule_id))",
+            "CREATE INDEX ix_card_rule_rule ON card_rule (rule_id)",
+            "CREATE TABLE card_suggestion (suggestion_uuid TEXT NOT NULL PRIMARY KEY, card_uuid TEXT NOT NULL, suggestion_key TEXT NOT NULL)",
+            "CREATE INDEX ix_card_suggestion_card ON card_suggestion (card_uuid)",
+            """
+            CREATE TABLE feedback (
+                feedback_key TEXT NOT NULL PRIMARY KEY,
+                card_uuid TEXT NOT NULL,
+                service_id TEXT NOT NULL,
+                outcome TEXT NOT NULL,
+                accepted_suggestions TEXT NOT NULL,
+                reason_system TEXT,
+                reason_code TEXT,
+                reason_display TEXT,
+                user_comment TEXT,
+                outcome_at_ms BIGINT NOT NULL,
+                received_at_ms BIGINT NOT NULL)
+            """,
+            "CREATE INDEX ix_feedback_card ON feedback (card_uuid)",
+        ]),
+    ];
+
+    public static int CurrentVersion => Migrations[^1].Version;
+}

@@ -1,0 +1,43 @@
+using CdsNatremia.Audit.Records;
+using CdsNatremia.Audit.Reports;
+
+namespace CdsNatremia.Audit.Storage;
+
+/// <summary>
+/// The audit trail's storage: issued cards, feedback, the override report and the retention purge. One interface,
+/// two implementations (embedded SQLite, shared PostgreSQL) that pass the same test suite. Every write is one
+/// transaction that has committed durably when the returned task completes. Thread-safe.
+/// </summary>
+public interface IAuditStore : IAsyncDisposable
+{
+    /// <summary>Which database this is ("sqlite" or "postgresql"), for logs and readiness.</summary>
+    string Kind { get; }
+
+    /// <summary>Creates the schema or migrates it to the current version. Safe to call from several instances at once.</summary>
+    Task InitializeAsync(CancellationToken cancellationToken);
+
+    /// <summary>Records the cards of one hook response, all or none.</summary>
+    Task RecordIssuedAsync(IReadOnlyList<IssuedCardRecord> cards, CancellationToken cancellationToken);
+
+    /// <summary>
+    /// Records one feedback request, all or none: every card must have been issued by <paramref name="serviceId"/> and
+    /// every accepted suggestion must belong to its card. An entry already stored (same identity, see
+    /// <see cref="FeedbackEntry.IdentityKey"/>) is not stored again.
+    /// </summary>
+    Task<FeedbackResult> RecordFeedbackAsync(string serviceId, IReadOnlyList<FeedbackEntry> entries, DateTimeOffset receivedAt, CancellationToken cancellationToken);
+
+    /// <summary>The record of a card, or null when unknown or purged.</summary>
+    Task<IssuedCardRecord?> FindCardAsync(Guid cardUuid, CancellationToken cancellationToken);
+
+    /// <summary>The feedback stored for a card, oldest outcome first.</summary>
+    Task<IReadOnlyList<FeedbackEntry>> FindFeedbackAsync(Guid cardUuid, CancellationToken cancellationToken);
+
+    /// <summary>The override report for cards issued in [from, to), optionally for one service.</summary>
+    Task<OverrideReport> ReportAsync(DateTimeOffset from, DateTimeOffset to, string? serviceId, CancellationToken cancellationToken);
+
+    /// <summary>Deletes cards issued before <paramref name="issuedBefore"/> with their feedback; returns the cards deleted.</summary>
+    Task<int> PurgeAsync(DateTimeOffset issuedBefore, CancellationToken cancellationToken);
+
+    /// <summary>How many issued-card and feedback records are stored.</summary>
+    Task<(long Cards, long Feedback)> CountAsync(CancellationToken cancellationToken);
+}

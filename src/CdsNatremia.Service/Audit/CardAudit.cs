@@ -1,0 +1,65 @@
+using System.Reflection;
+using CdsNatremia.Audit.Pseudonyms;
+using CdsNatremia.Audit.Records;
+using CdsNatremia.Audit.Storage;
+using CdsNatremia.Core.Cards;
+using CdsNatremia.Fhir.Knowledge;
+using CdsNatremia.Service.Hooks;
+
+namespace CdsNatremia.Service.Audit;
+
+/// <summary>
+/// Records what a hook response issued, before the response is sent (synchronous, durable write: see docs/audit.md).
+/// The patient id becomes a keyed pseudonym here and is not passed further; the patient's own reference is dropped
+/// from the resources used.
+/// </summary>
+public sealed class CardAudit
+{
+    private readonly IAuditStore _store;
+    private readonly PatientPseudonymizer _pseudonymizer;
+    private readonly LoadedKnowledge _knowledge;
+
+    /// <summary>Creates the recorder.</summary>
+    public CardAudit(IAuditStore store, PatientPseudonymizer pseudonymizer, LoadedKnowledge knowledge)
+    {
+        _store = store;
+        _pseudonymizer = pseudonymizer;
+        _knowledge = knowledge;
+    }
+
+    /// <summary>The service's software version (assembly informational version), as audit records carry it.</summary>
+    public static string SoftwareVersion { get; } =
+        typeof(CardAudit).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "unknown";
+
+    /// <summary>Builds the records of one response's cards.</summary>
+    public IReadOnlyList<IssuedCardRecord> Records(ServiceDefinition service, Guid hookInstance, string patientId, DateTimeOffset now, IReadOnlyList<IssuedCard> issued)
+    {
+        ArgumentNullException.ThrowIfNull(service);
+        ArgumentNullException.ThrowIfNull(issued);
+        var pseudonym = _pseudonymizer.Pseudonym(patientId);
+        var patientReference = "Patient/" + patientId;
+        return issued.Select(card => new IssuedCardRecord
+        {
+            CardUuid = card.Uuid,
+            ServiceId = service.Id,
+            Hook = service.Hook,
+            HookInstance = hookInstance,
+            PatientPseudonym = pseudonym,
+            RuleIds = card.Card.RuleIds,
+            KnowledgeVersion = _knowledge.Base.Version,
+            SoftwareVersion = SoftwareVersion,
+            Indicator = card.Card.Indicator switch { CardIndicator.Critical => "critical", CardIndicator.Warning => "warning", _ => "info" },
+            Topic = card.Card.Topic,
+            Summary = Summary.Fit(card.Card.Summary),
+            ResourcesUsed = card.Card.ResourcesUsed
+                .Where(r => !string.Equals(r, patientReference, StringComparison.Ordinal) && !string.Equals(r, patientId, StringComparison.Ordinal))
+                .ToList(),
+            SuggestionUuids = card.SuggestionUuids,
+            IssuedAt = now,
+        }).ToList();
+    }
+
+    /// <summary>Records one response's cards; completes once they are durably stored.</summary>
+    public Task RecordAsync(ServiceDefinition service, Guid hookInstance, string patientId, DateTimeOffset now, IReadOnlyList<IssuedCard> issued, CancellationToken cancellationToken)
+        => _store.RecordIssuedAsync(Records(service, hookInstance, patientId, now, issued), cancellationToken);
+}

@@ -1,0 +1,228 @@
+using CdsNatremia.Audit.Pseudonyms;
+using CdsNatremia.Audit.Records;
+using CdsNatremia.Audit.Storage;
+using CdsNatremia.Audit.Tests.Support;
+
+namespace CdsNatremia.Audit.Tests.Storage;
+
+/// <summary>
+/// The one suite every store must pass. SQLite runs it always; PostgreSQL when NATREMIA_TEST_POSTGRES is set
+/// (skipped with the reason otherwise).
+/// </summary>
+public abstract class AuditStoreContract
+{
+    /// <summary>A fresh, initialised store and what to do when the test is over.</summary>
+    protected sealed class Scope(SqlAuditStore store, Func<ValueTask> cleanup) : IAsyncDisposable
+    {
+        public SqlAuditStore Store { get; } = store;
+
+        public async ValueTask DisposeAsync()
+        {
+            await Store.DisposeAsync();
+            await cleanup();
+        }
+    }
+
+    protected abstract Task<Scope> OpenAsync();
+
+    private static CancellationToken None => CancellationToken.None;
+
+    [SkippableFact]
+    public async Task InitializeAsync_RunTwice_SchemaAtCurrentVersionOnce()
+    {
+        await using var scope = await OpenAsync();
+        await scope.Store.InitializeAsync(None);
+        Assert.Equal(1L, Convert.ToInt64(await scope.Store.QueryScalarAsync("SELECT COUNT(*) FROM schema_version", None), System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(1L, Convert.ToInt64(await scope.Store.QueryScalarAsync("SELECT MAX(version) FROM schema_version", None), System.Globalization.CultureInfo.InvariantCulture));
+    }
+
+    [SkippableFact]
+    public async Task FindCardAsync_AfterRecord_EveryFieldAsWritten()
+    {
+        await using var scope = await OpenAsync();
+        var card = Some.Card(rules: ["sodium.severity", "workup.tonicity"], suggestions: 2);
+        await scope.Store.RecordIssuedAsync([card], None);
+
+        var found = await scope.Store.FindCardAsync(card.CardUuid, None);
+
+        Assert.NotNull(found);
+        Assert.Equal(card.ServiceId, found.ServiceId);
+        Assert.Equal(card.Hook, found.Hook);
+        Assert.Equal(card.HookInstance, found.HookInstance);
+        Assert.Equal(card.PatientPseudonym, found.PatientPseudonym);
+        Assert.Equal(card.RuleIds, found.RuleIds);
+        Assert.Equal(card.KnowledgeVersion, found.KnowledgeVersion);
+        Assert.Equal(card.SoftwareVersion, found.SoftwareVersion);
+        Assert.Equal(card.Indicator, found.Indicator);
+        Assert.Equal(card.Topic, found.Topic);
+        Assert.Equal(card.Summary, found.Summary);
+        Assert.Equal(card.ResourcesUsed, found.ResourcesUsed);
+        Assert.Equal(card.SuggestionUuids.OrderBy(s => s.Key), found.SuggestionUuids.OrderBy(s => s.Key));
+        Assert.Equal(card.IssuedAt, found.IssuedAt);
+        Assert.Null(await scope.Store.FindCardAsync(Guid.NewGuid(), None));
+    }
+
+    [SkippableFact]
+    public async Task RecordFeedbackAsync_SameEntryTwice_StoredOnce()
+    {
+        await using var scope = await OpenAsync();
+        var card = Some.Card();
+        await scope.Store.RecordIssuedAsync([card], None);
+        var entry = Some.Accepted(card);
+
+        var first = await scope.Store.RecordFeedbackAsync(Some.ServiceId, [entry], Some.Now, None);
+        var second = await scope.Store.RecordFeedbackAsync(Some.ServiceId, [entry with { }], Some.Now.AddMinutes(5), None);
+        var inOneRequest = await scope.Store.RecordFeedbackAsync(Some.ServiceId, [entry, entry], Some.Now.AddMinutes(6), None);
+
+        Assert.Equal(new FeedbackResult.Stored(1, 0), first);
+        Assert.Equal(new FeedbackResult.Stored(0, 1), second);
+        Assert.Equal(new FeedbackResult.Stored(0, 2), inOneRequest);
+        Assert.Single(await scope.Store.FindFeedbackAsync(card.CardUuid, None));
+    }
+
+    [SkippableFact]
+    public async Task RecordFeedbackAsync_SameCardOtherTimestampOrOutcome_StoredAsNewFeedback()
+    {
+        await using var scope = await OpenAsync();
+        var card = Some.Card();
+        await scope.Store.RecordIssuedAsync([card], None);
+
+        var result = await scope.Store.RecordFeedbackAsync(Some.ServiceId,
+            [Some.Overridden(card, "benefit-outweighs-risk", at: card.IssuedAt.AddMinutes(1)),
+             Some.Overridden(card, "benefit-outweighs-risk", at: card.IssuedAt.AddMinutes(2)),
+             Some.Accepted(card, at: card.IssuedAt.AddMinutes(2))],
+            Some.Now, None);
+
+        Assert.Equal(new FeedbackResult.Stored(3, 0), result);
+        var stored = await scope.Store.FindFeedbackAsync(card.CardUuid, None);
+        Assert.Equal(3, stored.Count);
+        Assert.Equal("benefit-outweighs-risk", stored[0].OverrideReason?.Code);
+    }
+
+    [SkippableFact]
+    public async Task RecordFeedbackAsync_OneUnknownCard_NothingStored()
+    {
+        await using var scope = await OpenAsync();
+        var card = Some.Card();
+        await scope.Store.RecordIssuedAsync([card], None);
+        var stranger = Some.Card();
+
+        var result = await scope.Store.RecordFeedbackAsync(Some.ServiceId, [Some.Accepted(card), Some.Overridden(stranger)], Some.Now, None);
+
+        var unknown = Assert.IsType<FeedbackResult.UnknownCard>(result);
+        Assert.Contains(unknown.Problems, p => p.Contains(stranger.CardUuid.ToString(), StringComparison.Ordinal) && p.Contains("feedback[1]", StringComparison.Ordinal));
+        Assert.Equal((1L, 0L), await scope.Store.CountAsync(None));
+    }
+
+    [SkippableFact]
+    public async Task RecordFeedbackAsync_CardOfAnotherService_MismatchAndNothingStored()
+    {
+        await using var scope = await OpenAsync();
+        var card = Some.Card(serviceId: "natremia-order-sign");
+        await scope.Store.RecordIssuedAsync([card], None);
+
+        var result = await scope.Store.RecordFeedbackAsync(Some.ServiceId, [Some.Overridden(card)], Some.Now, None);
+
+        var mismatch = Assert.IsType<FeedbackResult.Mismatch>(result);
+        Assert.Contains("another CDS service", Assert.Single(mismatch.Problems), StringComparison.Ordinal);
+        Assert.Equal((1L, 0L), await scope.Store.CountAsync(None));
+    }
+
+    [SkippableFact]
+    public async Task RecordFeedbackAsync_SuggestionOfAnotherCard_MismatchAndNothingStored()
+    {
+        await using var scope = await OpenAsync();
+        var card = Some.Card();
+        var other = Some.Card();
+        await scope.Store.RecordIssuedAsync([card, other], None);
+        var entry = Some.Accepted(card) with { AcceptedSuggestions = [other.SuggestionUuids.Values.First()] };
+
+        var result = await scope.Store.RecordFeedbackAsync(Some.ServiceId, [Some.Overridden(other), entry], Some.Now, None);
+
+        Assert.Contains("is not a suggestion of card", Assert.Single(Assert.IsType<FeedbackResult.Mismatch>(result).Problems), StringComparison.Ordinal);
+        Assert.Equal((2L, 0L), await scope.Store.CountAsync(None));
+    }
+
+    [SkippableFact]
+    public async Task Concurrent_200CardWritesAnd200FeedbackPostsEachSentTwice_AllPresentExactlyOnce()
+    {
+        await using var scope = await OpenAsync();
+        var existing = Enumerable.Range(0, 200).Select(_ => Some.Card()).ToList();
+        await scope.Store.RecordIssuedAsync(existing, None);
+        var fresh = Enumerable.Range(0, 200).Select(_ => Some.Card()).ToList();
+        var entries = existing.Select((c, i) => i % 2 == 0 ? Some.Accepted(c) : Some.Overridden(c, "benefit-outweighs-risk")).ToList();
+
+        var writes = fresh.Select(c => scope.Store.RecordIssuedAsync([c], None))
+            .Concat(entries.Select(e => (Task)scope.Store.RecordFeedbackAsync(Some.ServiceId, [e], Some.Now, None)))
+            .Concat(entries.Select(e => (Task)scope.Store.RecordFeedbackAsync(Some.ServiceId, [e], Some.Now, None)))
+            .ToList();
+        await Task.WhenAll(writes);
+
+        Assert.Equal((400L, 200L), await scope.Store.CountAsync(None));
+        foreach (var card in existing.Take(20).Concat(fresh.TakeLast(20)))
+        {
+            Assert.NotNull(await scope.Store.FindCardAsync(card.CardUuid, None));
+        }
+
+        foreach (var card in existing)
+        {
+            Assert.Single(await scope.Store.FindFeedbackAsync(card.CardUuid, None));
+        }
+    }
+
+    [SkippableFact]
+    public async Task RecordIssuedAsync_PseudonymisedPatient_ClearIdInNoTable()
+    {
+        await using var scope = await OpenAsync();
+        const string PatientId = "pt-clear-9q7z4"; // invented; must not be found in any table
+        var pseudonym = new PatientPseudonymizer(new byte[32]).Pseudonym(PatientId);
+        var card = Some.Card(pseudonym: pseudonym);
+        await scope.Store.RecordIssuedAsync([card], None);
+        await scope.Store.RecordFeedbackAsync(Some.ServiceId, [Some.Overridden(card, "benefit-outweighs-risk", comment: "stable for years")], Some.Now, None);
+
+        var values = await scope.Store.DumpAllTextAsync(None);
+
+        Assert.Contains(values, v => v == pseudonym);
+        Assert.Contains(values, v => v == "feedback");
+        Assert.DoesNotContain(values, v => v.Contains(PatientId, StringComparison.OrdinalIgnoreCase));
+    }
+
+    [SkippableFact]
+    public async Task PurgeAsync_CardsBeforeTheCut_DeletedWithTheirFeedbackOnly()
+    {
+        await using var scope = await OpenAsync();
+        var old = Some.Card(issuedAt: Some.Now.AddDays(-800));
+        var edge = Some.Card(issuedAt: Some.Now.AddDays(-730));
+        var recent = Some.Card(issuedAt: Some.Now.AddDays(-1));
+        await scope.Store.RecordIssuedAsync([old, edge, recent], None);
+        await scope.Store.RecordFeedbackAsync(Some.ServiceId, [Some.Accepted(old), Some.Overridden(edge), Some.Overridden(recent)], Some.Now, None);
+
+        var deleted = await scope.Store.PurgeAsync(Some.Now.AddDays(-730), None);
+
+        Assert.Equal(1, deleted);
+        Assert.Null(await scope.Store.FindCardAsync(old.CardUuid, None));
+        Assert.Empty(await scope.Store.FindFeedbackAsync(old.CardUuid, None));
+        Assert.NotNull(await scope.Store.FindCardAsync(edge.CardUuid, None));
+        Assert.Equal((2L, 2L), await scope.Store.CountAsync(None));
+        Assert.Equal(0L, Convert.ToInt64(await scope.Store.QueryScalarAsync($"SELECT COUNT(*) FROM card_suggestion WHERE card_uuid = '{old.CardUuid:D}'", None), System.Globalization.CultureInfo.InvariantCulture));
+        Assert.IsType<FeedbackResult.UnknownCard>(await scope.Store.RecordFeedbackAsync(Some.ServiceId, [Some.Overridden(old)], Some.Now, None));
+    }
+
+    [SkippableFact]
+    public async Task ReportAsync_HandCountedFixture_CountsPerRule()
+    {
+        await using var scope = await OpenAsync();
+        var (cards, feedback) = OverrideFixture.Build();
+        await scope.Store.RecordIssuedAsync(cards, None);
+        foreach (var (service, entry) in feedback)
+        {
+            Assert.IsType<FeedbackResult.Stored>(await scope.Store.RecordFeedbackAsync(service, [entry], Some.Now, None));
+        }
+
+        var report = await scope.Store.ReportAsync(OverrideFixture.From, OverrideFixture.To, null, None);
+
+        ReportExpectations.AllServices(report);
+        var chartOnly = await scope.Store.ReportAsync(OverrideFixture.From, OverrideFixture.To, Some.ServiceId, None);
+        ReportExpectations.ChartReviewOnly(chartOnly);
+    }
+}

@@ -1,0 +1,128 @@
+using System.Text;
+using CdsNatremia.Audit.Pseudonyms;
+using CdsNatremia.Audit.Storage;
+using CdsNatremia.Audit.Tests.Support;
+
+namespace CdsNatremia.Audit.Tests.Storage;
+
+/// <summary>The store suite on SQLite, plus what only a file can show: WAL mode, bytes on disk, crash and reopen.</summary>
+public sealed class SqliteAuditStoreTests : AuditStoreContract
+{
+    private static CancellationToken None => CancellationToken.None;
+
+    protected override async Task<Scope> OpenAsync()
+    {
+        var folder = NewFolder();
+        var store = new SqliteAuditStore(Path.Combine(folder, "audit.db"));
+        await store.InitializeAsync(None);
+        return new Scope(store, () =>
+        {
+            TryDelete(folder);
+            return ValueTask.CompletedTask;
+        });
+    }
+
+    [Fact]
+    public async Task InitializeAsync_NewFile_WriteAheadLogMode()
+    {
+        await using var scope = await OpenAsync();
+        Assert.Equal("wal", await scope.Store.QueryScalarAsync("PRAGMA journal_mode", None));
+        Assert.Equal(2L, await scope.Store.QueryScalarAsync("PRAGMA synchronous", None)); // 2 = FULL (SQLite documentation, PRAGMA synchronous)
+    }
+
+    [Fact]
+    public async Task FileBytes_PseudonymisedPatient_ClearIdNowhereInDatabaseOrLog()
+    {
+        var folder = NewFolder();
+        try
+        {
+            const string PatientId = "pt-clear-5k2w8"; // invented
+            var pseudonym = new PatientPseudonymizer(Enumerable.Repeat((byte)7, 32).ToArray()).Pseudonym(PatientId);
+            var store = new SqliteAuditStore(Path.Combine(folder, "audit.db"));
+            await store.InitializeAsync(None);
+            var card = Some.Card(pseudonym: pseudonym);
+            await store.RecordIssuedAsync([card], None);
+            await store.RecordFeedbackAsync(Some.ServiceId, [Some.Overridden(card, "benefit-outweighs-risk")], Some.Now, None);
+
+            var bytes = Directory.GetFiles(folder).SelectMany(File.ReadAllBytes).ToArray();
+
+            Assert.True(Contains(bytes, Encoding.UTF8.GetBytes(pseudonym)), "the pseudonym is stored");
+            Assert.False(Contains(bytes, Encoding.UTF8.GetBytes(PatientId)), "the clear patient id must not be in any file");
+            Assert.False(Contains(bytes, Encoding.Unicode.GetBytes(PatientId)), "nor in UTF-16");
+            await store.DisposeAsync();
+        }
+        finally
+        {
+            TryDelete(folder);
+        }
+    }
+
+    [Fact]
+    public async Task Reopen_AfterCrashWithoutClose_EveryCommittedRecordPresent()
+    {
+        var folder = NewFolder();
+        var copy = NewFolder();
+        try
+        {
+            var path = Path.Combine(folder, "audit.db");
+            var writer = new SqliteAuditStore(path);
+            await writer.InitializeAsync(None);
+            var cards = Enumerable.Range(0, 50).Select(_ => Some.Card()).ToList();
+            foreach (var card in cards)
+            {
+                await writer.RecordIssuedAsync([card], None);
+            }
+
+            await writer.RecordFeedbackAsync(Some.ServiceId, cards.Select(c => Some.Overridden(c)).ToList(), Some.Now, None);
+
+            // The crash: the writer is never disposed and no checkpoint runs. What a crash leaves is the files as they
+            // are on disk now (database plus write-ahead log), so copy them as they are and open the copy.
+            foreach (var file in Directory.GetFiles(folder).Where(f => !f.EndsWith("-shm", StringComparison.Ordinal)))
+            {
+                File.Copy(file, Path.Combine(copy, Path.GetFileName(file)));
+            }
+
+            Assert.True(File.Exists(Path.Combine(copy, "audit.db-wal")), "the records are still in the log, not yet checkpointed");
+            await using var reopened = new SqliteAuditStore(Path.Combine(copy, "audit.db"));
+            await reopened.InitializeAsync(None);
+            Assert.Equal((50L, 50L), await reopened.CountAsync(None));
+            Assert.NotNull(await reopened.FindCardAsync(cards[^1].CardUuid, None));
+
+            // And a second process opening the same live file while the first still holds it sees the same.
+            await using var second = new SqliteAuditStore(path);
+            await second.InitializeAsync(None);
+            Assert.Equal((50L, 50L), await second.CountAsync(None));
+            GC.KeepAlive(writer);
+        }
+        finally
+        {
+            TryDelete(folder);
+            TryDelete(copy);
+        }
+    }
+
+    private static bool Contains(byte[] haystack, byte[] needle) => haystack.AsSpan().IndexOf(needle) >= 0;
+
+    private static string NewFolder()
+    {
+        var folder = Path.Combine(Path.GetTempPath(), "natremia-audit-tests", Guid.NewGuid().ToString("N"));
+        Directory.CreateDirectory(folder);
+        return folder;
+    }
+
+    private static void TryDelete(string folder)
+    {
+        try
+        {
+            Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+            Directory.Delete(folder, recursive: true);
+        }
+        catch (IOException)
+        {
+            // A leftover temp folder is harmless.
+        }
+        catch (UnauthorizedAccessException)
+        {
+        }
+    }
+}
