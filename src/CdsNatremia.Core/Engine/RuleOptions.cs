@@ -1,3 +1,4 @@
+using CdsNatremia.Core.CorrectionRate;
 using CdsNatremia.Core.Sodium;
 
 namespace CdsNatremia.Core.Engine;
@@ -16,4 +17,10 @@ public sealed class RuleOptions
 
     /// <summary>Card indicator per band.</summary>
     public IndicatorOptions Indicators { get; set; } = new();
+
+    /// <summary>Correction-rate limits and the high-risk criteria.</summary>
+    public CorrectionRateOptions CorrectionRate { get; set; } = new();
+
+    /// <summary>Infusate content and body-water fractions for infusion predictions.</summary>
+    public InfusionOptions Infusion { get; set; } = new();
 }
