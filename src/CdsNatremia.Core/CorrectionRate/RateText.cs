@@ -24,8 +24,11 @@ internal static class RateText
         var kind = w.AnchoredAtNadir
             ? Invariant.Format($"anchored at the nadir, {Invariant.Time(w.Start)} to {Invariant.Time(w.End)}")
             : Invariant.Format($"the {Hours(w.LengthHours)} h ending {Invariant.Time(w.End)}, from {Invariant.Time(w.Start)}");
+        var rise = ReferenceEquals(w.Baseline, w.Latest)
+            ? Invariant.Format($"one value only, {Invariant.Number(w.Latest.Value)} mmol/L ({Markdown.Escape(w.Latest.Reference)}, {Invariant.Time(w.Latest.EffectiveAt)}), so no rise measured")
+            : Invariant.Format($"rise = {Invariant.Number(w.Latest.Value)} ({Markdown.Escape(w.Latest.Reference)}, {Invariant.Time(w.Latest.EffectiveAt)}) − {Invariant.Number(w.Baseline.Value)} ({Markdown.Escape(w.Baseline.Reference)}, {Invariant.Time(w.Baseline.EffectiveAt)}) = **{Mmol(w.Rise)}** over {Hours(w.ElapsedHours)} h");
         var text = Invariant.Format(
-            $"**{Hours(w.LengthHours)}-h window** ({kind}): rise = {Invariant.Number(w.Latest.Value)} ({Markdown.Escape(w.Latest.Reference)}, {Invariant.Time(w.Latest.EffectiveAt)}) − {Invariant.Number(w.Baseline.Value)} ({Markdown.Escape(w.Baseline.Reference)}, {Invariant.Time(w.Baseline.EffectiveAt)}) = **{Mmol(w.Rise)}** over {Hours(w.ElapsedHours)} h; limit ({w.LimitLabel}) {Mmol(w.Limit)}; {Status(w.Status)}");
+            $"**{Hours(w.LengthHours)}-h window** ({kind}): {rise}; limit ({w.LimitLabel}) {Mmol(w.Limit)}; {Status(w.Status)}");
         if (w.Status == RateStatus.Approaching && w.Rise < w.Limit - options.ApproachingWithinMmolPerL)
         {
             text += " (by projection)";
