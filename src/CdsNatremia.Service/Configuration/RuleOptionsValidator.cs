@@ -25,6 +25,13 @@ internal sealed class RuleOptionsValidator : IValidateOptions<RuleOptions>
             failures.Add("Natremia:Rules:Severity: thresholds must rise: ModerateFrom < MildFrom < NormalFrom < NormalTo.");
         }
 
+        var limits = options.CorrectionRate.Resolve();
+        if (!(limits.HighRiskDay <= Math.Min(limits.FirstDay, limits.LaterDay) && limits.HighRiskTwoDays <= limits.TwoDays
+            && Math.Max(limits.FirstDay, limits.LaterDay) <= limits.TwoDays))
+        {
+            failures.Add("Natremia:Rules:CorrectionRate: high-risk limits must not exceed the usual ones, and no 24-h limit may exceed the 48-h limit.");
+        }
+
         return failures.Count > 0 ? ValidateOptionsResult.Fail(failures) : ValidateOptionsResult.Success;
     }
 }
