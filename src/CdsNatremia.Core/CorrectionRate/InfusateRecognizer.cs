@@ -13,6 +13,8 @@ namespace CdsNatremia.Core.CorrectionRate;
 /// </summary>
 public static partial class InfusateRecognizer
 {
+    private const int MaxTextLength = 500;
+
     /// <summary>The ValueSet id of the fluids.</summary>
     public const string FluidSetId = "fluid-sodium-chloride";
 
@@ -29,7 +31,7 @@ public static partial class InfusateRecognizer
             return null;
         }
 
-        var texts = order.Ingredients.Select(i => i.Text).Append(order.Text).Append(order.DosageText).OfType<string>().ToList();
+        var texts = order.Ingredients.Select(i => i.Text).Append(order.Text).Append(order.DosageText).OfType<string>().Select(Clip).ToList();
         var setMatch = fluids is null ? null : MedicationMatching.Match(fluids, order);
         var ringers = texts.Any(t => RingersName().IsMatch(t));
         var saline = texts.Any(t => SalineName().IsMatch(t))
@@ -88,7 +90,7 @@ public static partial class InfusateRecognizer
             return null;
         }
 
-        var m = StrengthPattern().Match(strength);
+        var m = StrengthPattern().Match(Clip(strength));
         if (!m.Success)
         {
             return null;
@@ -121,7 +123,7 @@ public static partial class InfusateRecognizer
             return null;
         }
 
-        foreach (Match m in PercentPattern().Matches(text))
+        foreach (Match m in PercentPattern().Matches(Clip(text)))
         {
             var value = double.Parse(m.Groups["p"].Value, CultureInfo.InvariantCulture);
             if (Percent(value) is not null)
@@ -143,26 +145,30 @@ public static partial class InfusateRecognizer
     };
 
     private static bool IsOral(string? route)
-        => route is not null && OralRoute().IsMatch(route);
+        => route is not null && OralRoute().IsMatch(Clip(route));
 
-    [GeneratedRegex(@"(?<![\p{L}\p{N}])(oral|by mouth|per os|PO|enteral|nasogastric)(?![\p{L}\p{N}])", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant, 100)]
+    // The patterns have no nested quantifiers, so no match timeout is set (a timeout could fail a request on a busy
+    // machine); client text is cut to a length no real order text reaches, which bounds the work.
+    private static string Clip(string text) => text.Length <= MaxTextLength ? text : text[..MaxTextLength];
+
+    [GeneratedRegex(@"(?<![\p{L}\p{N}])(oral|by mouth|per os|PO|enteral|nasogastric)(?![\p{L}\p{N}])", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant)]
     private static partial Regex OralRoute();
 
-    [GeneratedRegex(@"(?<![\p{L}\p{N}])(sodium\s+chloride|saline|NaCl)(?![\p{L}\p{N}])", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant, 100)]
+    [GeneratedRegex(@"(?<![\p{L}\p{N}])(sodium\s+chloride|saline|NaCl)(?![\p{L}\p{N}])", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant)]
     private static partial Regex SalineName();
 
-    [GeneratedRegex(@"(?<![\p{L}\p{N}])(ringer'?s?\s+lactate|lactated\s+ringer'?s?|hartmann'?s?(\s+solution)?|compound\s+sodium\s+lactate)(?![\p{L}\p{N}])", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant, 100)]
+    [GeneratedRegex(@"(?<![\p{L}\p{N}])(ringer'?s?\s+lactate|lactated\s+ringer'?s?|hartmann'?s?(\s+solution)?|compound\s+sodium\s+lactate)(?![\p{L}\p{N}])", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant)]
     private static partial Regex RingersName();
 
-    [GeneratedRegex(@"(?<![\p{L}\p{N}])half[\s-]+normal\s+saline(?![\p{L}\p{N}])", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant, 100)]
+    [GeneratedRegex(@"(?<![\p{L}\p{N}])half[\s-]+normal\s+saline(?![\p{L}\p{N}])", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant)]
     private static partial Regex HalfNormal();
 
-    [GeneratedRegex(@"(?<![\p{L}\p{N}-])normal\s+saline(?![\p{L}\p{N}])", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant, 100)]
+    [GeneratedRegex(@"(?<![\p{L}\p{N}-])normal\s+saline(?![\p{L}\p{N}])", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant)]
     private static partial Regex NormalSaline();
 
-    [GeneratedRegex(@"(?<![\p{N}.])(?<p>\d+(?:\.\d+)?)\s*%", RegexOptions.CultureInvariant, 100)]
+    [GeneratedRegex(@"(?<![\p{N}.])(?<p>\d+(?:\.\d+)?)\s*%", RegexOptions.CultureInvariant)]
     private static partial Regex PercentPattern();
 
-    [GeneratedRegex(@"(?<![\p{N}.])(?<n>\d+(?:\.\d+)?)\s*(?<nu>mg|g)\s*/\s*(?<d>\d+(?:\.\d+)?)?\s*(?<du>mL|dL|L)(?![\p{L}])", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant, 100)]
+    [GeneratedRegex(@"(?<![\p{N}.])(?<n>\d+(?:\.\d+)?)\s*(?<nu>mg|g)\s*/\s*(?<d>\d+(?:\.\d+)?)?\s*(?<du>mL|dL|L)(?![\p{L}])", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant)]
     private static partial Regex StrengthPattern();
 }

@@ -18,6 +18,12 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
     /// <summary>Topic code of the card (card-topic CodeSystem).</summary>
     public const string Topic = "infusion-prediction";
 
+    /// <summary>Lightest weight, kg, the prediction uses; below it the weight is taken as an entry error (common practice: a plausibility check).</summary>
+    public const double MinimumPlausibleWeightKg = 1;
+
+    /// <summary>Heaviest weight, kg, the prediction uses (common practice: a plausibility check).</summary>
+    public const double MaximumPlausibleWeightKg = 400;
+
     /// <inheritdoc />
     public string RuleId => "sodium.infusion-prediction";
 
@@ -50,6 +56,14 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
         var rateOptions = context.Options.CorrectionRate;
         var allowance = Allowance.For(context);
         var weight = facts.Latest(Analyte.BodyWeight);
+        string? weightProblem = null;
+        if (weight is not null && !(weight.Value >= MinimumPlausibleWeightKg && weight.Value <= MaximumPlausibleWeightKg))
+        {
+            weightProblem = Invariant.Format(
+                $"The latest weight, {Invariant.Number(weight.Value)} kg ({Markdown.Escape(weight.Reference)}), is outside {Invariant.Number(MinimumPlausibleWeightKg)}–{Invariant.Number(MaximumPlausibleWeightKg)} kg and was not used.");
+            weight = null;
+        }
+
         var age = facts.AgeAt(context.Request.Now);
         var serum = allowance?.Episode.Latest;
 
@@ -67,6 +81,10 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
         else
         {
             findings.Add("**No usable body weight** was found, so the effect of the ordered volume on this patient is not predicted. Record a weight to get it.");
+            if (weightProblem is not null)
+            {
+                findings.Add(weightProblem);
+            }
         }
 
         if (serum is not null)
@@ -87,7 +105,9 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
             used.Add(order.Reference);
             var name = Markdown.Escape(order.Text ?? order.Ingredients.Select(i => i.Text).FirstOrDefault(t => t is not null) ?? order.Reference);
             var route = recognition.RouteStated ? Markdown.Escape(order.Route) : "route not stated (intravenous assumed)";
-            var volume = order.VolumeMilliliters is { } ml ? Invariant.Format($"{Invariant.Number(ml)} mL") : "volume not stated";
+            var millilitres = order.VolumeMilliliters is { } v && v > 0 && double.IsFinite(v) ? v : (double?)null;
+            var volume = millilitres is { } ml ? Invariant.Format($"{Invariant.Number(ml)} mL")
+                : order.VolumeMilliliters is { } bad ? Invariant.Format($"volume {Invariant.Number(bad)} mL not usable") : "volume not stated";
             if (recognition.Infusate is not { } infusate)
             {
                 steps.Add($"**{name}** ({Markdown.Escape(order.Reference)}; {route}; {volume}): recognised as an intravenous sodium chloride fluid ({Markdown.Escape(recognition.How)}) but its concentration could not be read, so no prediction is made for it.");
@@ -113,17 +133,17 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
             var perLitre = AdrogueMadias.ChangePerLitre(infusate.Sodium, infusate.Potassium, serum.Value, water.Litres);
             var text = head + Invariant.Format(
                 $". **Per litre** = ({Invariant.Number(infusate.Sodium)} + {Invariant.Number(infusate.Potassium)} − {Invariant.Number(serum.Value)}) / ({Invariant.Number(Math.Round(water.Litres, 1))} + 1) = **{Signed(perLitre)} mmol/L**");
-            if (order.VolumeMilliliters is { } millilitres)
+            if (millilitres is { } ordered)
             {
-                var change = AdrogueMadias.ChangeForVolume(perLitre, millilitres);
+                var change = AdrogueMadias.ChangeForVolume(perLitre, ordered);
                 total += change;
                 predictedAny = true;
-                text += Invariant.Format($"; **for {Invariant.Number(millilitres)} mL** = {Signed(perLitre)} × {Invariant.Number(millilitres)} / 1000 = **{Signed(change)} mmol/L**");
+                text += Invariant.Format($"; **for {Invariant.Number(ordered)} mL** = {Signed(perLitre)} × {Invariant.Number(ordered)} / 1000 = **{Signed(change)} mmol/L**");
             }
             else
             {
                 unknownVolume = true;
-                text += "; the order states no volume, so only the per-litre figure is given";
+                text += "; the order states no usable volume, so only the per-litre figure is given";
             }
 
             steps.Add(text + ".");

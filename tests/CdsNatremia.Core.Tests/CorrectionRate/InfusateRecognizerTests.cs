@@ -63,6 +63,13 @@ public class InfusateRecognizerTests
     }
 
     [Fact]
+    public void Recognize_VeryLongText_AnswersWithoutError()
+    {
+        var text = "sodium chloride 3% " + new string(' ', 200_000) + "1 mg/" + new string('9', 100_000);
+        Assert.Equal(InfusateKind.Saline3, InfusateRecognizer.Recognize(Order(text, route: new string(' ', 100_000) + "x"), Fluids, new InfusionOptions())!.Infusate!.Kind);
+    }
+
+    [Fact]
     public void Recognize_NoRoute_AssumedButSaid()
         => Assert.False(InfusateRecognizer.Recognize(Order("sodium chloride 0.9%", route: null), Fluids, new InfusionOptions())!.RouteStated);
 

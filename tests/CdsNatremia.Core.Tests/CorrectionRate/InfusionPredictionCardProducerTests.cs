@@ -63,6 +63,29 @@ public class InfusionPredictionCardProducerTests
         Assert.DoesNotContain("predicted sodium change", card.Summary, StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData(0)]
+    [InlineData(-60)]
+    [InlineData(900)]
+    public void Produce_ImplausibleWeight_NotUsedAndSaid(double kg)
+    {
+        var card = Assert.Single(Cards(Woman55(Some.Sodium(118, 4), Some.Lab(Analyte.BodyWeight, kg, 3)), [Draft("nacl3", "sodium chloride 3%")]));
+        Assert.Contains("No usable body weight", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("was not used", card.Detail, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData(-150.0)]
+    [InlineData(0.0)]
+    [InlineData(null)]
+    public void Produce_NoUsableVolume_PerLitreOnly(double? millilitres)
+    {
+        var card = Assert.Single(Cards(Woman55(Some.Sodium(118, 4), Some.Lab(Analyte.BodyWeight, 60, 3)), [Draft("nacl3", "sodium chloride 3%", millilitres)]));
+        Assert.Contains("**+12.7 mmol/L**", card.Detail, StringComparison.Ordinal); // (513 − 118) / 31, Adrogué–Madias
+        Assert.Contains("only the per-litre figure", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("per litre only", card.Summary, StringComparison.Ordinal);
+    }
+
     [Fact]
     public void Produce_OrderSelect_OnlySelectedDrafts()
     {
