@@ -1,4 +1,5 @@
 using CdsNatremia.Core.Engine;
+using CdsNatremia.Core.Facts;
 
 namespace CdsNatremia.Core.CorrectionRate;
 
@@ -39,6 +40,19 @@ public sealed record Allowance(CorrectionEpisode Episode, RateWindow Day, RateWi
             RateWindows.Measure(episode, at, 48, limits, factors.Count > 0, now, options),
             factors,
             limits);
+    }
+
+    /// <summary>
+    /// True when an order card has something to say about sodium: the episode's nadir is below the normal range, or no
+    /// sodium could be used although some was received (the card then says so). With no sodium data at all, or a sodium
+    /// that stayed normal, an order of a common fluid gets no card.
+    /// </summary>
+    public static bool Concerns(DecisionContext context, Allowance? allowance)
+    {
+        Guard.NotNull(context, nameof(context));
+        return allowance is null
+            ? context.Request.Facts.SetAside.Any(s => s.Analyte == Analyte.Sodium)
+            : allowance.Episode.Nadir.Value < context.Thresholds.NormalFrom;
     }
 
     /// <summary>Lines for a card: where the correction stands and what is left.</summary>

@@ -10,7 +10,8 @@ namespace CdsNatremia.Core.CorrectionRate;
 /// Watches how fast serum sodium is rising since the nadir of the current episode, in the 24-h and 48-h windows, against
 /// the configured limits (stricter at high risk of osmotic demyelination). At or past a limit: a critical card;
 /// approaching it: a warning; rising more slowly than the minimum daily goal while still profound: an info card.
-/// Otherwise no card, so a safe correction makes no noise. On the result hook it speaks only when a sodium arrived.
+/// Otherwise no card, so a safe correction makes no noise. On the result hook it speaks only when a sodium arrived, and
+/// only an episode whose nadir was below the normal range is watched.
 /// </summary>
 public sealed class CorrectionRateCardProducer : ICardProducer
 {
@@ -36,7 +37,8 @@ public sealed class CorrectionRateCardProducer : ICardProducer
 
         var options = context.Options.CorrectionRate;
         var episode = CorrectionEpisode.Find(context.Sodium, options);
-        if (episode is null)
+        // Only the correction of a low sodium is watched: a rise that starts at a normal value is out of scope.
+        if (episode is null || episode.Nadir.Value >= context.Thresholds.NormalFrom)
         {
             return [];
         }

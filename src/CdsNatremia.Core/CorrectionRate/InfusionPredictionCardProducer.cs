@@ -11,7 +11,8 @@ namespace CdsNatremia.Core.CorrectionRate;
 /// Ringer's lactate would move the serum sodium (Adrogué–Madias, per litre and for the ordered volume, with total body
 /// water from the latest weight, age and sex), and compares the rise with what the correction limits still allow.
 /// One card for all such orders. Without a usable weight it says so and shows the per-litre figure only for a labelled
-/// example weight; it never uses an invented weight as the patient's.
+/// example weight; it never uses an invented weight as the patient's. No card when the patient's sodium was never low
+/// in the current episode (a routine fluid order for a patient with normal sodium is not this service's business).
 /// </summary>
 public sealed class InfusionPredictionCardProducer : ICardProducer
 {
@@ -41,20 +42,20 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
             .Where(x => x.Recognition is not null)
             .Select(x => (x.Order, Recognition: x.Recognition!))
             .ToList();
-        if (orders.Count == 0)
+        var allowance = Allowance.For(context);
+        if (orders.Count == 0 || !Allowance.Concerns(context, allowance))
         {
             return [];
         }
 
-        return [Build(context, orders)];
+        return [Build(context, orders, allowance)];
     }
 
-    private Card Build(DecisionContext context, List<(MedicationFact Order, InfusateRecognition Recognition)> orders)
+    private Card Build(DecisionContext context, List<(MedicationFact Order, InfusateRecognition Recognition)> orders, Allowance? allowance)
     {
         var facts = context.Request.Facts;
         var options = context.Options.Infusion;
         var rateOptions = context.Options.CorrectionRate;
-        var allowance = Allowance.For(context);
         var weight = facts.Latest(Analyte.BodyWeight);
         string? weightProblem = null;
         if (weight is not null && !(weight.Value >= MinimumPlausibleWeightKg && weight.Value <= MaximumPlausibleWeightKg))
@@ -91,6 +92,11 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
         {
             used.Add(serum.Reference);
             findings.Add("Serum sodium used: " + Cite.Result(serum));
+            if (context.Sodium.LatestIsStale)
+            {
+                findings.Add(Invariant.Format(
+                    $"This sodium is {RateText.Hours(context.Sodium.LatestAgeHours ?? 0)} h old (older than {RateText.Hours(context.Sodium.StaleAfterHours)} h): the prediction starts from it, so a fresh sodium gives a truer figure."));
+            }
         }
         else
         {

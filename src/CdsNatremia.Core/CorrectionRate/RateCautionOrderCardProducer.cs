@@ -8,7 +8,8 @@ namespace CdsNatremia.Core.CorrectionRate;
 
 /// <summary>
 /// On order-select and order-sign, a draft order for a vasopressin-receptor antagonist or for desmopressin gets a
-/// warning that it can change sodium quickly, with where the correction stands against the limits.
+/// warning that it can change sodium quickly, with where the correction stands against the limits. Like the infusion
+/// card, it speaks only when the sodium of the current episode was low (or could not be used).
 /// </summary>
 public sealed class RateCautionOrderCardProducer : ICardProducer
 {
@@ -43,12 +44,12 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
             }
         }
 
-        if (matches.Count == 0)
+        var allowance = Allowance.For(context);
+        if (matches.Count == 0 || !Allowance.Concerns(context, allowance))
         {
             return [];
         }
 
-        var allowance = Allowance.For(context);
         var names = string.Join(", ", matches.Select(m => m.Match.Ingredient).Distinct(StringComparer.OrdinalIgnoreCase));
         var findings = matches
             .Select(m => Invariant.Format($"**{Markdown.Escape(m.Match.Ingredient)}** ({Markdown.Escape(m.Order.Reference)}; matched by {Markdown.Escape(m.Match.By)}; {Markdown.Escape(m.Match.Set.Label)}). {m.Why}"))

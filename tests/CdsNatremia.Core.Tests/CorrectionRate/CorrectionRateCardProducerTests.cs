@@ -54,6 +54,14 @@ public class CorrectionRateCardProducerTests
         => Assert.Empty(RateCards(Some.Facts(Some.Sodium(126, 21), Some.Sodium(130, 1))));
 
     [Fact]
+    public void Produce_RiseFromANormalSodium_NoCard()
+        => Assert.Empty(RateCards(Some.Facts(Some.Sodium(135, 21), Some.Sodium(147, 1)))); // 135 is normal (2014 European guideline: hyponatremia < 135)
+
+    [Fact]
+    public void Produce_RiseFromJustBelowNormal_Watched()
+        => Assert.Single(RateCards(Some.Facts(Some.Sodium(134, 21), Some.Sodium(146, 1))));
+
+    [Fact]
     public void Produce_SingleResult_NoCard()
         => Assert.Empty(RateCards(Some.Facts(Some.Sodium(118, 1))));
 

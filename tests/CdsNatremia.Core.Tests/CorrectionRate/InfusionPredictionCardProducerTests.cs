@@ -98,6 +98,34 @@ public class InfusionPredictionCardProducerTests
     }
 
     [Fact]
+    public void Produce_NormalSodium_NoCardForARoutineFluid()
+        => Assert.Empty(Cards(Woman55(Some.Sodium(139, 4), Some.Lab(Analyte.BodyWeight, 60, 3)), [Draft("ns", "sodium chloride 0.9%", 1000)]));
+
+    [Fact]
+    public void Produce_NoSodiumData_NoCard()
+        => Assert.Empty(Cards(Woman55(Some.Lab(Analyte.BodyWeight, 60, 3)), [Draft("ns", "sodium chloride 0.9%", 1000)]));
+
+    [Fact]
+    public void Produce_SodiumReceivedButUnusable_SaysSoWithoutPrediction()
+    {
+        var facts = Woman55(Some.Lab(Analyte.BodyWeight, 60, 3)) with
+        {
+            SetAside = [new SetAsideItem("Observation/na-x", "Sodium 302 mg/dL", "unit not accepted", Analyte.Sodium, Some.Now.AddHours(-2))],
+        };
+        var card = Assert.Single(Cards(facts, [Draft("nacl3", "sodium chloride 3%")]));
+        Assert.Contains("No usable sodium result", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("Observation/na-x", card.Detail, StringComparison.Ordinal);
+        Assert.DoesNotContain("Per litre", card.Detail, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Produce_StaleSodium_Said()
+    {
+        var card = Assert.Single(Cards(Woman55(Some.Sodium(118, 80), Some.Lab(Analyte.BodyWeight, 60, 3)), [Draft("nacl3", "sodium chloride 3%")]));
+        Assert.Contains("80 h old", card.Detail, StringComparison.Ordinal); // stale after 72 h (SodiumReadingOptions default)
+    }
+
+    [Fact]
     public void Produce_OralSalt_NoCard()
         => Assert.Empty(Cards(Woman55(Some.Sodium(118, 4)), [Draft("tab", "sodium chloride 3%", route: "oral")]));
 
