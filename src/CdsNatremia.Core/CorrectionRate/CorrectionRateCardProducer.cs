@@ -104,6 +104,7 @@ public sealed class CorrectionRateCardProducer : ICardProducer
                     ? "Re-lowering the sodium (for example with electrolyte-free water, with or without desmopressin) is described in local protocols once a limit has been passed; whether to do it is a decision for a senior clinician."
                     : "Slowing the correction before the limit is reached, as local protocol describes.",
                 "Checking sodium again soon and often while the rise is this fast, at the interval local protocol sets.",
+                "The limits are for chronic hyponatremia (present 48 h or more, or of unknown duration; 2014 European guideline); where it is documented to be acute, the balance of risks differs, and a senior clinician weighs it.",
             ]);
         CardFooter.Write(detail, context.Request.Facts, RateText.Sources(limits));
 

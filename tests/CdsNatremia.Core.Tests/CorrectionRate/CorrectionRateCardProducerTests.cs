@@ -37,6 +37,7 @@ public class CorrectionRateCardProducerTests
         Assert.Contains("Hours left in that window: 3 h", card.Detail, StringComparison.Ordinal);
         Assert.Contains("**14.4 mmol/L**", card.Detail, StringComparison.Ordinal); // 12 + 0.6 × 4
         Assert.Contains("senior clinician", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("chronic hyponatremia (present 48 h or more", card.Detail, StringComparison.Ordinal); // acute vs chronic, 2014 European guideline
         Assert.Contains("osmotic demyelination", card.Detail, StringComparison.Ordinal); // cautions present
         Assert.Contains("Spasovski", card.Detail, StringComparison.Ordinal);
     }
