@@ -1,3 +1,4 @@
+using CdsNatremia.Core.CorrectionRate;
 using CdsNatremia.Core.Sodium;
 using CdsNatremia.Core.Workup;
 
@@ -20,4 +21,10 @@ public sealed class RuleOptions
 
     /// <summary>The hyponatremia work-up (tonicity, glucose, onset, urine studies, SIADH checklist).</summary>
     public WorkupOptions Workup { get; set; } = new();
+
+    /// <summary>Correction-rate limits and the high-risk criteria.</summary>
+    public CorrectionRateOptions CorrectionRate { get; set; } = new();
+
+    /// <summary>Infusate content and body-water fractions for infusion predictions.</summary>
+    public InfusionOptions Infusion { get; set; } = new();
 }

@@ -10,7 +10,7 @@ internal sealed class RuleOptionsValidator : IValidateOptions<RuleOptions>
     public ValidateOptionsResult Validate(string? name, RuleOptions options)
     {
         var failures = new List<string>();
-        foreach (var group in new object[] { options.Severity, options.Reading, options.Indicators, options.Workup })
+        foreach (var group in new object[] { options.Severity, options.Reading, options.Indicators, options.Workup, options.CorrectionRate, options.Infusion })
         {
             var results = new List<ValidationResult>();
             if (!Validator.TryValidateObject(group, new ValidationContext(group), results, validateAllProperties: true))
@@ -33,6 +33,13 @@ internal sealed class RuleOptionsValidator : IValidateOptions<RuleOptions>
         if (!(t.ModerateFrom < t.MildFrom && t.MildFrom < t.NormalFrom && t.NormalFrom < t.NormalTo))
         {
             failures.Add("Natremia:Rules:Severity: thresholds must rise: ModerateFrom < MildFrom < NormalFrom < NormalTo.");
+        }
+
+        var limits = options.CorrectionRate.Resolve();
+        if (!(limits.HighRiskDay <= Math.Min(limits.FirstDay, limits.LaterDay) && limits.HighRiskTwoDays <= limits.TwoDays
+            && Math.Max(limits.FirstDay, limits.LaterDay) <= limits.TwoDays))
+        {
+            failures.Add("Natremia:Rules:CorrectionRate: high-risk limits must not exceed the usual ones, and no 24-h limit may exceed the 48-h limit.");
         }
 
         return failures.Count > 0 ? ValidateOptionsResult.Fail(failures) : ValidateOptionsResult.Success;

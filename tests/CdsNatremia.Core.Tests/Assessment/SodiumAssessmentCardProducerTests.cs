@@ -35,7 +35,8 @@ public class SodiumAssessmentCardProducerTests
     public void Decide_UsesTheLatestResultNotTheLowest()
     {
         var cards = Some.Engine().Decide(Some.Request(Some.Facts(Some.Sodium(118, hoursAgo: 30), Some.Sodium(131, hoursAgo: 1))));
-        var card = Assert.Single(cards);
+        var card = Assert.Single(cards, c => c.Topic == "sodium-assessment"); // the 13 mmol/L rise also gets a correction-rate card
+        Assert.Contains(cards, c => c.Topic == "correction-rate");
         Assert.StartsWith("Sodium 131 mmol/L (mild", card.Summary, StringComparison.Ordinal);
     }
 

@@ -1,0 +1,75 @@
+using CdsNatremia.Core.Engine;
+using CdsNatremia.Core.Facts;
+
+namespace CdsNatremia.Core.CorrectionRate;
+
+/// <summary>
+/// How much more the sodium may rise now: the 24-h and 48-h windows measured at the assessment time (or at the latest
+/// result if that is a little later), and the smaller allowance left of the two.
+/// </summary>
+/// <param name="Episode">The current episode.</param>
+/// <param name="Day">The 24-h window.</param>
+/// <param name="TwoDays">The 48-h window.</param>
+/// <param name="Factors">High-risk factors (empty when none).</param>
+/// <param name="Limits">The limits in force.</param>
+public sealed record Allowance(CorrectionEpisode Episode, RateWindow Day, RateWindow TwoDays, IReadOnlyList<HighRiskFactor> Factors, CorrectionLimits Limits)
+{
+    /// <summary>The allowance left, mmol/L: the smaller of the two windows' (negative when a limit is already passed).</summary>
+    public double Remaining => Math.Min(Day.Remaining, TwoDays.Remaining);
+
+    /// <summary>The window whose allowance is the smaller.</summary>
+    public RateWindow Binding => Day.Remaining <= TwoDays.Remaining ? Day : TwoDays;
+
+    /// <summary>The allowance for a request, or null when there is no usable sodium.</summary>
+    public static Allowance? For(DecisionContext context)
+    {
+        Guard.NotNull(context, nameof(context));
+        var options = context.Options.CorrectionRate;
+        if (CorrectionEpisode.Find(context.Sodium, options) is not { } episode)
+        {
+            return null;
+        }
+
+        var limits = options.Resolve();
+        var factors = HighRiskFactors.Find(context.Request.Facts, episode.Nadir, context.Knowledge, options);
+        var now = context.Request.Now;
+        var at = episode.Latest.EffectiveAt > now ? episode.Latest.EffectiveAt : now;
+        return new Allowance(
+            episode,
+            RateWindows.Measure(episode, at, 24, limits, factors.Count > 0, now, options),
+            RateWindows.Measure(episode, at, 48, limits, factors.Count > 0, now, options),
+            factors,
+            limits);
+    }
+
+    /// <summary>
+    /// True when an order card has something to say about sodium: the episode's nadir is below the normal range, or no
+    /// sodium could be used although some was received (the card then says so). With no sodium data at all, or a sodium
+    /// that stayed normal, an order of a common fluid gets no card.
+    /// </summary>
+    public static bool Concerns(DecisionContext context, Allowance? allowance)
+    {
+        Guard.NotNull(context, nameof(context));
+        return allowance is null
+            ? context.Request.Facts.SetAside.Any(s => s.Analyte == Analyte.Sodium)
+            : allowance.Episode.Nadir.Value < context.Thresholds.NormalFrom;
+    }
+
+    /// <summary>Lines for a card: where the correction stands and what is left.</summary>
+    public IReadOnlyList<string> Describe(CorrectionRateOptions options)
+    {
+        Guard.NotNull(options, nameof(options));
+        var lines = new List<string>();
+        if (!Episode.IsRising)
+        {
+            lines.Add(Invariant.Format(
+                $"No rise measured yet in this episode: the latest sodium is the lowest ({RateText.Mmol(Episode.Nadir.Value)} at {Invariant.Time(Episode.Nadir.EffectiveAt)}), so the windows count from that result."));
+        }
+
+        lines.Add(RateText.Window(Day, options));
+        lines.Add(RateText.Window(TwoDays, options));
+        lines.Add(RateText.HighRisk(Factors, Limits));
+        lines.Add(Invariant.Format($"**Allowance left now**: {RateText.Mmol(Math.Max(0, Remaining))} (the smaller of the two windows; {Binding.LimitLabel})."));
+        return lines;
+    }
+}

@@ -1,0 +1,74 @@
+using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Knowledge;
+using CdsNatremia.Core.Text;
+
+namespace CdsNatremia.Core.CorrectionRate;
+
+/// <summary>
+/// Finds the factors that put a patient at high risk of osmotic demyelination, per the US expert panel (Verbalis et al.,
+/// Am J Med 2013;126:S1; reference sheet: secondary): sodium ≤ 105 mmol/L, low potassium, alcohol use disorder,
+/// malnutrition and advanced liver disease. Conditions are matched against the ValueSets in <c>profiles/</c>.
+/// </summary>
+public static class HighRiskFactors
+{
+    /// <summary>The ValueSets of high-risk conditions, with the word a card uses.</summary>
+    public static IReadOnlyList<(string SetId, string Kind, string Label)> ConditionSets { get; } =
+    [
+        ("condition-alcohol-use-disorder", "alcohol", "alcohol use disorder"),
+        ("condition-malnutrition", "malnutrition", "malnutrition"),
+        ("condition-cirrhosis", "liver", "advanced liver disease"),
+    ];
+
+    /// <summary>Every factor found; empty when none.</summary>
+    /// <param name="facts">The patient's facts.</param>
+    /// <param name="nadir">The lowest sodium of the current episode, or null.</param>
+    /// <param name="knowledge">The loaded code sets.</param>
+    /// <param name="options">Thresholds.</param>
+    public static IReadOnlyList<HighRiskFactor> Find(PatientFacts facts, LabResult? nadir, KnowledgeBase knowledge, CorrectionRateOptions options)
+    {
+        Guard.NotNull(facts, nameof(facts));
+        Guard.NotNull(knowledge, nameof(knowledge));
+        Guard.NotNull(options, nameof(options));
+        var found = new List<HighRiskFactor>();
+        if (nadir is not null && nadir.Value <= options.HighRiskNadirAtOrBelow)
+        {
+            found.Add(new HighRiskFactor(
+                "nadir",
+                Invariant.Format($"lowest sodium {Invariant.Number(nadir.Value)} mmol/L at {Invariant.Time(nadir.EffectiveAt)} ({Markdown.Escape(nadir.Reference)}) is at or below {Invariant.Number(options.HighRiskNadirAtOrBelow)} mmol/L"),
+                nadir.Reference));
+        }
+
+        if (facts.Latest(Analyte.Potassium) is { } potassium)
+        {
+            var (below, basis) = potassium.ReferenceLow is { } low
+                ? (low, "the laboratory's lower reference limit")
+                : (options.LowPotassiumBelow, "the configured lower limit");
+            if (potassium.Value < below)
+            {
+                found.Add(new HighRiskFactor(
+                    "potassium",
+                    Invariant.Format($"low potassium: {Invariant.Number(potassium.Value)} mmol/L at {Invariant.Time(potassium.EffectiveAt)} ({Markdown.Escape(potassium.Reference)}), below {basis} of {Invariant.Number(below)} mmol/L"),
+                    potassium.Reference));
+            }
+        }
+
+        foreach (var (setId, kind, label) in ConditionSets)
+        {
+            if (knowledge.Find(setId) is not { } set)
+            {
+                continue;
+            }
+
+            var condition = facts.Conditions
+                .OrderBy(c => c.ResourceId, StringComparer.Ordinal)
+                .FirstOrDefault(c => c.Codes.Any(set.Matches) || set.MatchName(c.Text) is not null);
+            if (condition is not null)
+            {
+                var text = string.IsNullOrWhiteSpace(condition.Text) ? string.Empty : ": " + Markdown.Escape(condition.Text);
+                found.Add(new HighRiskFactor(kind, $"{label}{text} ({Markdown.Escape(condition.Reference)})", condition.Reference));
+            }
+        }
+
+        return found;
+    }
+}

@@ -1,0 +1,23 @@
+namespace CdsNatremia.Core.CorrectionRate;
+
+/// <summary>A recognised infusate with its content, mmol/L.</summary>
+/// <param name="Kind">Which fluid.</param>
+/// <param name="Name">The name a card prints, e.g. "sodium chloride 3%".</param>
+/// <param name="Sodium">Sodium, mmol/L (from <see cref="InfusionOptions"/>).</param>
+/// <param name="Potassium">Potassium, mmol/L (0 for plain saline).</param>
+public sealed record Infusate(InfusateKind Kind, string Name, double Sodium, double Potassium)
+{
+    /// <summary>The infusate for a kind, with the configured content.</summary>
+    public static Infusate Of(InfusateKind kind, InfusionOptions options)
+    {
+        Guard.NotNull(options, nameof(options));
+        return kind switch
+        {
+            InfusateKind.Saline09 => new(kind, "sodium chloride 0.9%", options.Saline09Sodium, 0),
+            InfusateKind.Saline3 => new(kind, "sodium chloride 3%", options.Saline3Sodium, 0),
+            InfusateKind.Saline045 => new(kind, "sodium chloride 0.45%", options.Saline045Sodium, 0),
+            InfusateKind.RingersLactate => new(kind, "Ringer's lactate", options.RingersLactateSodium, options.RingersLactatePotassium),
+            _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, null),
+        };
+    }
+}

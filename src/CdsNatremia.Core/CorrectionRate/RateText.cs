@@ -1,0 +1,79 @@
+using CdsNatremia.Core.Text;
+
+namespace CdsNatremia.Core.CorrectionRate;
+
+/// <summary>How the rate cards word a window, a specimen note and the high-risk factors; shared by both producers.</summary>
+internal static class RateText
+{
+    public static string Hours(double hours) => Invariant.Number(Math.Round(hours, 1));
+
+    public static string Mmol(double value) => Invariant.Number(Math.Round(value, 1)) + " mmol/L";
+
+    public static string Status(RateStatus status) => status switch
+    {
+        RateStatus.NoRise => "no rise",
+        RateStatus.Within => "within the limit",
+        RateStatus.Approaching => "approaching the limit",
+        RateStatus.AtOrPast => "at or past the limit",
+        _ => throw new ArgumentOutOfRangeException(nameof(status), status, null),
+    };
+
+    /// <summary>One computation step for a window, with its inputs.</summary>
+    public static string Window(RateWindow w, CorrectionRateOptions options)
+    {
+        var kind = w.AnchoredAtNadir
+            ? Invariant.Format($"anchored at the nadir, {Invariant.Time(w.Start)} to {Invariant.Time(w.End)}")
+            : Invariant.Format($"the {Hours(w.LengthHours)} h ending {Invariant.Time(w.End)}, from {Invariant.Time(w.Start)}");
+        var rise = ReferenceEquals(w.Baseline, w.Latest)
+            ? Invariant.Format($"one value only, {Invariant.Number(w.Latest.Value)} mmol/L ({Markdown.Escape(w.Latest.Reference)}, {Invariant.Time(w.Latest.EffectiveAt)}), so no rise measured")
+            : Invariant.Format($"rise = {Invariant.Number(w.Latest.Value)} ({Markdown.Escape(w.Latest.Reference)}, {Invariant.Time(w.Latest.EffectiveAt)}) − {Invariant.Number(w.Baseline.Value)} ({Markdown.Escape(w.Baseline.Reference)}, {Invariant.Time(w.Baseline.EffectiveAt)}) = **{Mmol(w.Rise)}** over {Hours(w.ElapsedHours)} h");
+        var text = Invariant.Format(
+            $"**{Hours(w.LengthHours)}-h window** ({kind}): {rise}; limit ({w.LimitLabel}) {Mmol(w.Limit)}; {Status(w.Status)}");
+        if (w.Status == RateStatus.Approaching && w.Rise < w.Limit - options.ApproachingWithinMmolPerL)
+        {
+            text += " (by projection)";
+        }
+
+        if (w.Status != RateStatus.AtOrPast && w.Remaining > 0)
+        {
+            text += Invariant.Format($"; allowance left {Mmol(w.Remaining)}");
+        }
+
+        if (w.HoursLeft is { } left)
+        {
+            text += left > 0
+                ? Invariant.Format($"; {Hours(left)} h left in the window (to {Invariant.Time(w.End)})")
+                : Invariant.Format($"; the window ended at {Invariant.Time(w.End)}");
+        }
+
+        if (w.ProjectedRise is { } projected && w.ElapsedHours > 0)
+        {
+            var rate = w.Rise / w.ElapsedHours;
+            var toEnd = (w.End - w.Latest.EffectiveAt).TotalHours;
+            text += Invariant.Format(
+                $". Projection: {Invariant.Number(Math.Round(rate, 2))} mmol/L per h ({Mmol(w.Rise)} / {Hours(w.ElapsedHours)} h) × {Hours(toEnd)} h to the window's end + {Mmol(w.Rise)} = **{Mmol(projected)}** by {Invariant.Time(w.End)} if the current rate goes on");
+        }
+
+        if (w.MixedSpecimens)
+        {
+            text += ". " + MixedSpecimenNote;
+        }
+
+        return text + ".";
+    }
+
+    public const string MixedSpecimenNote =
+        "The start and end values come from different kinds of specimen (blood gas or point-of-care whole blood vs laboratory serum or plasma); " +
+        "the methods can differ by a few mmol/L, so part of the change may be the method (common practice)";
+
+    public static string HighRisk(IReadOnlyList<HighRiskFactor> factors, CorrectionLimits limits)
+        => factors.Count == 0
+            ? Invariant.Format($"No factor of high risk of osmotic demyelination was found in the data received (checked: nadir ≤ 105 mmol/L, low potassium, alcohol use disorder, malnutrition, advanced liver disease); the usual limits apply.")
+            : Invariant.Format($"**High risk of osmotic demyelination**, so the stricter limits apply ({Mmol(limits.HighRiskDay)} in any 24 h, {Mmol(limits.HighRiskTwoDays)} in 48 h): ") + string.Join("; ", factors.Select(f => f.Description)) + ".";
+
+    public static IReadOnlyList<string> Sources(CorrectionLimits limits) =>
+    [
+        Markdown.Escape(limits.Source),
+        "High-risk factors for osmotic demyelination: US expert panel (Verbalis et al., Am J Med 2013;126:S1).",
+    ];
+}

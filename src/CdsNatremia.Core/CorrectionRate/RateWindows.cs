@@ -1,0 +1,80 @@
+using CdsNatremia.Core.Facts;
+
+namespace CdsNatremia.Core.CorrectionRate;
+
+/// <summary>
+/// Measures the rise of sodium in 24-h and 48-h windows of an episode. A window of length L is anchored at the nadir
+/// while the time it is measured at is no more than L after the nadir (so a result exactly 24 h after the nadir still
+/// belongs to the first 24 h); later, it is the window of length L ending at that time, and its baseline is the lowest of
+/// the last result at or before the window's start and the results inside it. Pure.
+/// </summary>
+public static class RateWindows
+{
+    /// <summary>
+    /// Measures one window.
+    /// </summary>
+    /// <param name="episode">The episode.</param>
+    /// <param name="at">The time the window ends at or is measured at: the latest result's time for the rate watch, "now" for an order.</param>
+    /// <param name="lengthHours">24 or 48.</param>
+    /// <param name="limits">The correction limits.</param>
+    /// <param name="highRisk">True when the patient is at high risk.</param>
+    /// <param name="now">The assessment time, for hours left.</param>
+    /// <param name="options">Approaching margin and projection settings.</param>
+    public static RateWindow Measure(
+        CorrectionEpisode episode,
+        DateTimeOffset at,
+        double lengthHours,
+        CorrectionLimits limits,
+        bool highRisk,
+        DateTimeOffset now,
+        CorrectionRateOptions options)
+    {
+        Guard.NotNull(episode, nameof(episode));
+        Guard.NotNull(limits, nameof(limits));
+        Guard.NotNull(options, nameof(options));
+        var nadir = episode.Nadir;
+        var anchored = (at - nadir.EffectiveAt).TotalHours <= lengthHours;
+        var start = anchored ? nadir.EffectiveAt : at.AddHours(-lengthHours);
+        var end = anchored ? nadir.EffectiveAt.AddHours(lengthHours) : at;
+
+        var inRange = episode.Results.Where(r => r.EffectiveAt <= at).ToList();
+        var latest = inRange.Contains(episode.Latest) ? episode.Latest : inRange.Last();
+        LabResult baseline;
+        if (anchored)
+        {
+            baseline = nadir;
+        }
+        else
+        {
+            var atStart = inRange.Where(r => r.EffectiveAt <= start).OrderBy(r => r.EffectiveAt).Last();
+            var candidates = inRange
+                .Where(r => r.EffectiveAt > start && CorrectionEpisode.Minute(r.EffectiveAt) < CorrectionEpisode.Minute(latest.EffectiveAt))
+                .Prepend(atStart);
+            baseline = candidates.OrderBy(r => r.Value).ThenBy(r => r.EffectiveAt).First();
+        }
+
+        var rise = latest.Value - baseline.Value;
+        var limit = lengthHours <= 24 ? limits.Day(anchored, highRisk) : limits.TwoDay(highRisk);
+        var label = (lengthHours <= 24, anchored) switch
+        {
+            (true, true) => highRisk ? "any 24 h, high risk" : "first 24 h after the nadir",
+            (true, false) => highRisk ? "any 24 h, high risk" : "each 24 h after the first",
+            (false, true) => highRisk ? "48 h, high risk" : "first 48 h after the nadir",
+            (false, false) => highRisk ? "48 h, high risk" : "any 48 h",
+        };
+
+        double? hoursLeft = anchored ? Math.Max(0, (end - now).TotalHours) : null;
+        var elapsed = (latest.EffectiveAt - baseline.EffectiveAt).TotalHours;
+        double? projected = anchored && rise > 0 && elapsed > 0
+            ? rise + (rise / elapsed * Math.Max(0, (end - latest.EffectiveAt).TotalHours))
+            : null;
+
+        var status = rise <= 0 ? RateStatus.NoRise
+            : rise >= limit ? RateStatus.AtOrPast
+            : rise >= limit - options.ApproachingWithinMmolPerL ? RateStatus.Approaching
+            : projected >= limit && elapsed >= options.ProjectAfterHours ? RateStatus.Approaching
+            : RateStatus.Within;
+
+        return new RateWindow(lengthHours, anchored, start, end, baseline, latest, rise, limit, label, hoursLeft, projected, status);
+    }
+}

@@ -1,0 +1,150 @@
+using CdsNatremia.Core.Cards;
+using CdsNatremia.Core.CorrectionRate;
+using CdsNatremia.Core.Engine;
+using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Knowledge;
+using CdsNatremia.Core.Tests.Support;
+
+namespace CdsNatremia.Core.Tests.CorrectionRate;
+
+public class CorrectionRateCardProducerTests
+{
+    // ICD-10 F10, mental and behavioural disorders due to use of alcohol (from memory; the project ValueSet uses it as an is-a filter).
+    private static readonly KnowledgeBase Knowledge = new(
+    [
+        new CodeSet("condition-alcohol-use-disorder", "https://example.org/vs/a", "1", "alcohol use disorder", [], [new CodeRef(CodeSystems.Icd10, "F10")], ["alcohol use disorder"]),
+        new CodeSet("condition-malnutrition", "https://example.org/vs/m", "1", "malnutrition", [], [], ["malnutrition"]),
+        new CodeSet("condition-cirrhosis", "https://example.org/vs/c", "1", "cirrhosis", [], [], ["cirrhosis"]),
+    ], "test");
+
+    private static IReadOnlyList<Card> RateCards(PatientFacts facts, HookKind hook = HookKind.PatientView, IReadOnlyList<string>? newResults = null)
+    {
+        var request = Some.Request(facts, hook) with { NewResultIds = newResults ?? [] };
+        return new CorrectionRateCardProducer().Produce(new DecisionContext(request, new RuleOptions(), Knowledge)).ToList();
+    }
+
+    [Fact]
+    public void Produce_TwelveIn20Hours_CriticalWithTheNumbers()
+    {
+        // Rise 12 mmol/L in 20 h is past the 2014 European guideline's 10 mmol/L in the first 24 h.
+        var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(112, 21, id: "na-nadir"), Some.Sodium(118, 11), Some.Sodium(124, 1, id: "na-last"))));
+        Assert.Equal(CardIndicator.Critical, card.Indicator);
+        Assert.Equal("correction-rate", card.Topic);
+        Assert.Contains("12 mmol/L in 20 h", card.Summary, StringComparison.Ordinal);
+        Assert.Contains("Observation/na-nadir", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("Observation/na-last", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("124 − 112 = 12 mmol/L", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("Hours left in that window: 3 h", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**14.4 mmol/L**", card.Detail, StringComparison.Ordinal); // 12 + 0.6 × 4
+        Assert.Contains("senior clinician", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("chronic hyponatremia (present 48 h or more", card.Detail, StringComparison.Ordinal); // acute vs chronic, 2014 European guideline
+        Assert.Contains("osmotic demyelination", card.Detail, StringComparison.Ordinal); // cautions present
+        Assert.Contains("Spasovski", card.Detail, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Produce_NineIn20Hours_WarningApproaching()
+    {
+        var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(112, 21), Some.Sodium(121, 1))));
+        Assert.Equal(CardIndicator.Warning, card.Indicator); // 9 is within 2 of 10
+        Assert.Contains("approaching", card.Summary, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Produce_SlowSafeRise_NoCard()
+        => Assert.Empty(RateCards(Some.Facts(Some.Sodium(126, 21), Some.Sodium(130, 1))));
+
+    [Fact]
+    public void Produce_RiseFromANormalSodium_NoCard()
+        => Assert.Empty(RateCards(Some.Facts(Some.Sodium(135, 21), Some.Sodium(147, 1)))); // 135 is normal (2014 European guideline: hyponatremia < 135)
+
+    [Fact]
+    public void Produce_RiseFromJustBelowNormal_Watched()
+        => Assert.Single(RateCards(Some.Facts(Some.Sodium(134, 21), Some.Sodium(146, 1))));
+
+    [Fact]
+    public void Produce_SingleResult_NoCard()
+        => Assert.Empty(RateCards(Some.Facts(Some.Sodium(118, 1))));
+
+    [Fact]
+    public void Produce_HighRiskNadir105_StricterLimitAndSaysWhy()
+    {
+        // Nadir ≤ 105 mmol/L: high risk (US expert panel, Verbalis et al. 2013): 8 in any 24 h, so 8 is at the limit.
+        var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(105, 21), Some.Sodium(113, 1))));
+        Assert.Equal(CardIndicator.Critical, card.Indicator);
+        Assert.Contains("High risk of osmotic demyelination", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("lowest sodium 105 mmol/L", card.Detail, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Produce_Nadir106_NotHighRisk_EightIsOnlyApproaching()
+        => Assert.Equal(CardIndicator.Warning, Assert.Single(RateCards(Some.Facts(Some.Sodium(106, 21), Some.Sodium(114, 1)))).Indicator);
+
+    [Theory]
+    [InlineData(3.7, 3.8, true)] // below the laboratory's lower limit
+    [InlineData(3.8, 3.8, false)] // at it: not low
+    [InlineData(3.4, null, true)] // no limit sent: configured 3.5 (common practice)
+    [InlineData(3.5, null, false)]
+    public void Produce_LowPotassium_HighRisk(double potassium, double? referenceLow, bool highRisk)
+    {
+        var k = Some.Lab(Analyte.Potassium, potassium, 2) with { ReferenceLow = referenceLow };
+        var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(112, 21), Some.Sodium(120, 1), k)));
+        Assert.Equal(highRisk ? CardIndicator.Critical : CardIndicator.Warning, card.Indicator); // 8: at the high-risk limit, or approaching 10
+        Assert.Equal(highRisk, card.Detail.Contains("low potassium: ", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Produce_AlcoholUseDisorder_HighRiskNamed()
+    {
+        var facts = Some.Facts(Some.Sodium(112, 21), Some.Sodium(120, 1)) with
+        {
+            Conditions = [new ConditionFact("c1", [new CodeRef(CodeSystems.Icd10, "F10.2")], "Alcohol dependence", null)],
+        };
+        var card = Assert.Single(RateCards(facts));
+        Assert.Equal(CardIndicator.Critical, card.Indicator);
+        Assert.Contains("alcohol use disorder", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("Condition/c1", card.Detail, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Produce_ResultHookWithoutANewSodium_NoCard()
+    {
+        var facts = Some.Facts(Some.Sodium(112, 21), Some.Sodium(124, 1, id: "na-new"));
+        Assert.Empty(RateCards(facts, HookKind.ResultArrive, ["k-new"]));
+        Assert.Single(RateCards(facts, HookKind.ResultArrive, ["na-new"]));
+    }
+
+    [Fact]
+    public void Produce_EnteredInErrorValueSetAside_NotCounted()
+    {
+        // The FHIR layer sets an entered-in-error result aside; only the usable results count, and the card lists it.
+        var facts = Some.Facts(Some.Sodium(112, 21), Some.Sodium(120, 1)) with
+        {
+            SetAside = [new SetAsideItem("Observation/na-err", "Sodium 131 mmol/L", "status entered-in-error", Analyte.Sodium, Some.Now.AddHours(-10))],
+        };
+        var card = Assert.Single(RateCards(facts));
+        Assert.Contains("8 mmol/L", card.Summary, StringComparison.Ordinal);
+        Assert.Contains("Observation/na-err", card.Detail, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Produce_ProfoundAndFlatForADay_InfoTooSlow()
+    {
+        // Minimum goal 4 mmol/L per day (US expert panel, Verbalis et al. 2013); 118 → 119 in 24 h is below it.
+        var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(118, 25), Some.Sodium(119, 1))));
+        Assert.Equal(CardIndicator.Info, card.Indicator);
+        Assert.Contains("minimum goal of 4 mmol/L", card.Summary, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Produce_ModerateAndFlat_NoSlowCard()
+        => Assert.Empty(RateCards(Some.Facts(Some.Sodium(126, 25), Some.Sodium(126, 1)))); // not profound
+
+    [Fact]
+    public void Produce_MixedSpecimens_Labelled()
+    {
+        var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(112, 21), Some.Sodium(124, 1, specimen: SpecimenKind.ArterialBlood))));
+        Assert.Contains("whole-blood specimen", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("different kinds of specimen", card.Detail, StringComparison.Ordinal);
+    }
+}
