@@ -1,3 +1,5 @@
+using CdsNatremia.Core.Drugs;
+
 namespace CdsNatremia.Core.Assessment;
 
 /// <summary>The work-up rules, in the order a clinician reasons. Add a new work-up step here.</summary>
@@ -7,5 +9,6 @@ public static class AssessmentRules
     public static IReadOnlyList<IAssessmentRule> Default() =>
     [
         new SodiumSeverityRule(),
+        new DrugCauseRule(),
     ];
 }

@@ -1,4 +1,5 @@
 using CdsNatremia.Core.Assessment;
+using CdsNatremia.Core.Drugs;
 
 namespace CdsNatremia.Core.Engine;
 
@@ -9,5 +10,6 @@ public static class CardProducers
     public static IReadOnlyList<ICardProducer> Default() =>
     [
         new SodiumAssessmentCardProducer(AssessmentRules.Default()),
+        new DrugOrderWarningProducer(),
     ];
 }

@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Drugs;
 using CdsNatremia.Core.Sodium;
 
 namespace CdsNatremia.Core.Engine;
@@ -16,4 +17,7 @@ public sealed class RuleOptions
 
     /// <summary>Card indicator per band.</summary>
     public IndicatorOptions Indicators { get; set; } = new();
+
+    /// <summary>Drug-cause reasoning and the prescribing warning.</summary>
+    public DrugCauseOptions DrugCause { get; set; } = new();
 }
