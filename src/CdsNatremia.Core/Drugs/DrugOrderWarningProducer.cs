@@ -115,7 +115,7 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         var recheck = Invariant.Format($"within {Duration(recheckHours)}");
         var consider = new List<string>
         {
-            DrugText.Considerations(main),
+            DrugText.ConsiderationsBeforeStarting(main),
             $"If it is kept, clinicians usually recheck sodium {recheck} of starting it, and sooner if symptoms appear (common practice).",
             "The choices below are offered, at most one: remove this draft order, or keep it and add a sodium recheck.",
         };
@@ -143,7 +143,7 @@ public sealed class DrugOrderWarningProducer : ICardProducer
 
         return new Card
         {
-            Summary = Summary.Fit(SummaryText(name, main.Set.Label, reason, band, thresholds, options)),
+            Summary = Summary.Fit(SummaryText(main, reason, band, thresholds, options)),
             Indicator = profound ? CardIndicator.Critical : CardIndicator.Warning,
             Detail = detail.ToString(),
             Topic = "drug-order-warning",
@@ -155,9 +155,9 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         };
     }
 
-    private static string SummaryText(string name, string label, OrderWarningReason reason, SeverityBand? band, SeverityThresholds thresholds, DrugCauseOptions options)
+    private static string SummaryText(MedicationMatch main, OrderWarningReason reason, SeverityBand? band, SeverityThresholds thresholds, DrugCauseOptions options)
     {
-        var what = $"{name} ({label}) can lower sodium";
+        var what = $"{DrugText.PlainNameWithGroup(main)} can lower sodium";
         return reason.Trigger switch
         {
             OrderWarningTrigger.Low => Invariant.Format(

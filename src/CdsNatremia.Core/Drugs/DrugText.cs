@@ -49,4 +49,20 @@ public static class DrugText
         };
         return text + caution + ".";
     }
+
+    /// <summary>What clinicians usually weigh before starting a drug of this group (a draft order: nothing to taper yet).</summary>
+    public static string ConsiderationsBeforeStarting(MedicationMatch match)
+    {
+        Guard.NotNull(match, nameof(match));
+        return $"Before starting {Name(match)}, clinicians usually weigh the need for it now against the risk to sodium, and consider an alternative with a lower risk to sodium.";
+    }
+
+    /// <summary>"citalopram, a selective serotonin reuptake inhibitor (SSRI)," as plain text for a summary.</summary>
+    public static string PlainNameWithGroup(MedicationMatch match)
+    {
+        Guard.NotNull(match, nameof(match));
+        var label = match.Set.Label;
+        var article = label.Length > 0 && "aeiouAEIOU".Contains(label[0], StringComparison.Ordinal) ? "an" : "a";
+        return $"{match.Ingredient}, {article} {label},";
+    }
 }
