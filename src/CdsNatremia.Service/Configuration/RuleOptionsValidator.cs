@@ -10,13 +10,19 @@ internal sealed class RuleOptionsValidator : IValidateOptions<RuleOptions>
     public ValidateOptionsResult Validate(string? name, RuleOptions options)
     {
         var failures = new List<string>();
-        foreach (var group in new object[] { options.Severity, options.Reading, options.Indicators, options.DrugCause })
+        foreach (var group in new object[] { options.Severity, options.Reading, options.Indicators })
         {
             var results = new List<ValidationResult>();
             if (!Validator.TryValidateObject(group, new ValidationContext(group), results, validateAllProperties: true))
             {
                 failures.AddRange(results.Select(r => $"Natremia:Rules:{group.GetType().Name.Replace("Options", string.Empty, StringComparison.Ordinal)}: {r.ErrorMessage}"));
             }
+        }
+
+        var drugCauseResults = new List<ValidationResult>();
+        if (!Validator.TryValidateObject(options.DrugCause, new ValidationContext(options.DrugCause), drugCauseResults, validateAllProperties: true))
+        {
+            failures.AddRange(drugCauseResults.Select(r => $"Natremia:Rules:DrugCause: {r.ErrorMessage}"));
         }
 
         var t = options.Severity.Resolve();
