@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Drugs;
 using CdsNatremia.Core.Workup;
 
 namespace CdsNatremia.Core.Assessment;
@@ -15,6 +16,7 @@ public static class AssessmentRules
         new UrineStudiesRule(),
         new VolumeCluesRule(),
         new SiadhChecklistRule(),
+        new DrugCauseRule(),
         new MissingTestsRule(),
     ];
 }

@@ -1,5 +1,6 @@
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.CorrectionRate;
+using CdsNatremia.Core.Drugs;
 
 namespace CdsNatremia.Core.Engine;
 
@@ -13,5 +14,6 @@ public static class CardProducers
         new CorrectionRateCardProducer(),
         new InfusionPredictionCardProducer(),
         new RateCautionOrderCardProducer(),
+        new DrugOrderWarningProducer(),
     ];
 }

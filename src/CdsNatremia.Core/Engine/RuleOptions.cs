@@ -1,4 +1,5 @@
 using CdsNatremia.Core.CorrectionRate;
+using CdsNatremia.Core.Drugs;
 using CdsNatremia.Core.Sodium;
 using CdsNatremia.Core.Workup;
 
@@ -27,4 +28,7 @@ public sealed class RuleOptions
 
     /// <summary>Infusate content and body-water fractions for infusion predictions.</summary>
     public InfusionOptions Infusion { get; set; } = new();
+
+    /// <summary>Drug-cause reasoning and the prescribing warning.</summary>
+    public DrugCauseOptions DrugCause { get; set; } = new();
 }

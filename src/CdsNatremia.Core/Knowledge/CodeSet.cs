@@ -54,11 +54,14 @@ public sealed class CodeSet
         if (Names.Count > 0)
         {
             // Whole words only: no letter or digit may touch the name on either side, so "indapamide" never matches "xindapamidex".
+            // No match timeout: the pattern is an alternation of escaped literals (words joined by \s+) between
+            // one-character lookarounds, so matching is linear in the text and cannot backtrack catastrophically. A
+            // timeout here made a busy server silently miss a drug name (a timed-out match read as "no match").
             var alternatives = string.Join("|", Names.Select(n => Regex.Escape(n).Replace("\\ ", "\\s+", StringComparison.Ordinal)));
             _names = new Regex(
                 $"(?<![\\p{{L}}\\p{{N}}])(?:{alternatives})(?![\\p{{L}}\\p{{N}}])",
                 RegexOptions.IgnoreCase | RegexOptions.CultureInvariant,
-                TimeSpan.FromMilliseconds(50));
+                Regex.InfiniteMatchTimeout);
         }
     }
 
@@ -118,14 +121,7 @@ public sealed class CodeSet
             return null;
         }
 
-        try
-        {
-            var match = _names.Match(text);
-            return match.Success ? match.Value.ToLowerInvariant() : null;
-        }
-        catch (RegexMatchTimeoutException)
-        {
-            return null;
-        }
+        var match = _names.Match(text);
+        return match.Success ? match.Value.ToLowerInvariant() : null;
     }
 }

@@ -95,6 +95,8 @@ public static class KnowledgeLoader
             throw Problem(file, "ValueSet.url is required");
         }
 
+        KnowledgeFileChecks.Check(file, valueSet);
+
         if (valueSet.Compose?.Include is not { Count: > 0 } includes)
         {
             throw Problem(file, "ValueSet.compose.include is empty");

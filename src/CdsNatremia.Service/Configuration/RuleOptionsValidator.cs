@@ -10,7 +10,7 @@ internal sealed class RuleOptionsValidator : IValidateOptions<RuleOptions>
     public ValidateOptionsResult Validate(string? name, RuleOptions options)
     {
         var failures = new List<string>();
-        foreach (var group in new object[] { options.Severity, options.Reading, options.Indicators, options.Workup, options.CorrectionRate, options.Infusion })
+        foreach (var group in new object[] { options.Severity, options.Reading, options.Indicators, options.Workup, options.CorrectionRate, options.Infusion, options.DrugCause })
         {
             var results = new List<ValidationResult>();
             if (!Validator.TryValidateObject(group, new ValidationContext(group), results, validateAllProperties: true))
