@@ -67,7 +67,8 @@ internal sealed class CheckInputCommand : Command<CheckInputCommand.Settings>
         foreach (var verdict in report.Resources)
         {
             var colour = verdict.Verdict switch { "used" => "green", "used-stale" => "yellow", "ignored" => "grey", _ => "red" };
-            table.AddRow(Markup.Escape(verdict.Reference), $"[{colour}]{verdict.Verdict}[/]", Markup.Escape(verdict.Reason),
+            var why = verdict.FhirIssues.Count == 0 ? verdict.Reason : verdict.Reason + "; not valid FHIR R4: " + string.Join("; ", verdict.FhirIssues);
+            table.AddRow(Markup.Escape(verdict.Reference), $"[{colour}]{verdict.Verdict}[/]", Markup.Escape(why),
                 verdict.PrefetchKeys.Count == 0 ? "[grey](none)[/]" : Markup.Escape(string.Join(", ", verdict.PrefetchKeys)));
         }
 

@@ -20,6 +20,7 @@ internal sealed class InputChecker
     private readonly SodiumReadingOptions _reading;
     private readonly KnowledgeBase _knowledge;
     private readonly IReadOnlyDictionary<string, string> _templates;
+    private readonly ResourceParser _parser = new();
 
     public InputChecker(SodiumReadingOptions reading, KnowledgeBase knowledge, IReadOnlyDictionary<string, string> templates)
     {
@@ -59,7 +60,7 @@ internal sealed class InputChecker
         problems.AddRange(duplicates.Select(d => $"{d} appears more than once; the service reads it once"));
 
         using var document = JsonDocument.Parse(bundle.ToJsonString());
-        var value = new BundleReader(new ResourceParser()).Read("bundle", document.RootElement, DataOrigin.Prefetch);
+        var value = new BundleReader(_parser).Read("bundle", document.RootElement, DataOrigin.Prefetch);
         var assembled = new FactsAssembler(_reading).Assemble(patient ?? string.Empty, now, [value], []);
         var facts = assembled.Facts;
         var context = new JsonObject { ["patientId"] = patient ?? string.Empty, ["userId"] = "Practitioner/toolkit" };
@@ -74,16 +75,23 @@ internal sealed class InputChecker
             var id = resource is null ? null : FhirSearchEvaluator.IdOf(resource);
             var reference = type is not null && id is not null ? $"{type}/{id}" : $"entry {i.ToString(CultureInfo.InvariantCulture)}";
             var keys = resource is not null && selectedBy.TryGetValue(resource, out var k) ? k : [];
-            var unreadable = value.Problems.FirstOrDefault(p => p.Contains(reference + " could not", StringComparison.Ordinal) || p.Contains($"entry {i} has no resource", StringComparison.Ordinal));
             if (resource is null || type is null)
             {
                 verdicts.Add(new(reference, "unreadable", "the entry has no resource with a resourceType", keys));
                 continue;
             }
 
-            if (unreadable is not null)
+            // The service's own parser decides whether it reads the resource; a strict parse says what is not valid FHIR.
+            var issues = StrictFhirCheck.Issues(resource.ToJsonString());
+            if (_parser.TryParse(resource.ToJsonString(), out var parseProblem) is null)
             {
-                verdicts.Add(new(reference, "unreadable", unreadable.Replace("prefetch 'bundle': ", string.Empty, StringComparison.Ordinal), keys));
+                verdicts.Add(new(reference, "unreadable", $"not readable as FHIR R4 ({parseProblem}); the service refuses it whole", keys) { FhirIssues = issues });
+                continue;
+            }
+
+            if (!IsKnownType(type))
+            {
+                verdicts.Add(new(reference, "unreadable", $"'{type}' is not a FHIR R4 resource type", keys) { FhirIssues = issues });
                 continue;
             }
 
@@ -96,11 +104,13 @@ internal sealed class InputChecker
                 "Medication" => ("used", "read when a MedicationStatement or MedicationRequest refers to it"),
                 _ => ("ignored", $"the service does not read {type} resources"),
             };
-            verdicts.Add(new(reference, verdict, reason, keys));
+            verdicts.Add(new(reference, verdict, reason, keys) { FhirIssues = issues });
         }
 
         return new InputReport(patient, verdicts, problems);
     }
+
+    private static bool IsKnownType(string type) => Hl7.Fhir.Model.ModelInfo.IsKnownResource(type);
 
     private (string, string) Observation(string? id, PatientFacts facts, DateTimeOffset now)
     {

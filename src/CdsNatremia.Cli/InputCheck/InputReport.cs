@@ -6,6 +6,6 @@ namespace CdsNatremia.Cli.InputCheck;
 /// <param name="Problems">Structural problems of the Bundle itself.</param>
 internal sealed record InputReport(string? PatientId, IReadOnlyList<ResourceVerdict> Resources, IReadOnlyList<string> Problems)
 {
-    /// <summary>True when the Bundle is readable and every entry parsed.</summary>
-    public bool Readable => Problems.Count == 0 && Resources.All(r => r.Verdict != "unreadable");
+    /// <summary>True when the Bundle is readable and every entry is valid FHIR R4 the service can read.</summary>
+    public bool Readable => Problems.Count == 0 && Resources.All(r => r.Verdict != "unreadable" && r.FhirIssues.Count == 0);
 }

@@ -5,4 +5,8 @@ namespace CdsNatremia.Cli.InputCheck;
 /// <param name="Verdict">"used", "used-stale", "set-aside", "ignored" or "unreadable".</param>
 /// <param name="Reason">Why, in plain words.</param>
 /// <param name="PrefetchKeys">The prefetch keys whose templates select it (empty: an EHR filling prefetch would not send it).</param>
-internal sealed record ResourceVerdict(string Reference, string Verdict, string Reason, IReadOnlyList<string> PrefetchKeys);
+internal sealed record ResourceVerdict(string Reference, string Verdict, string Reason, IReadOnlyList<string> PrefetchKeys)
+{
+    /// <summary>Where the resource is not valid FHIR R4 JSON (strict Firely parse); empty when valid.</summary>
+    public IReadOnlyList<string> FhirIssues { get; init; } = [];
+}

@@ -28,7 +28,7 @@ internal static class HookRequestComposer
             case "patient-view":
                 break;
             case "order-select" or "order-sign":
-                var drafts = input.DraftOrders ?? DraftOrdersFrom(input.Resources);
+                var drafts = (JsonObject?)input.DraftOrders?.DeepClone() ?? DraftOrdersFrom(input.Resources);
                 context["draftOrders"] = drafts;
                 if (service.Hook == "order-select")
                 {
