@@ -17,7 +17,7 @@ internal sealed class ReplayCommand : AsyncCommand<ReplayCommand.Settings>
         public string? Input { get; set; }
 
         [CommandOption("--all")]
-        [Description("Replay every scenario and compare each answer with the manifest's expectation.")]
+        [Description("Replay every scenario. Each scenario (all or one) is compared with the manifest's expectation; a difference exits 1.")]
         public bool All { get; set; }
 
         [CommandOption("--service <ID>")]
@@ -94,7 +94,7 @@ internal sealed class ReplayCommand : AsyncCommand<ReplayCommand.Settings>
         {
             var service = ReplayRunner.Choose(services, input, settings.Service);
             var result = await ReplayRunner.RunAsync(connection.Client, service, input, mode, cancellationToken).ConfigureAwait(false);
-            var mismatches = settings.All && input.Scenario is { } scenario && mode == PrefetchMode.Evaluate
+            var mismatches = input.Scenario is { } scenario && mode == PrefetchMode.Evaluate
                 ? ScenarioExpectation.Check(scenario, result)
                 : [];
             results.Add((result, mismatches));
