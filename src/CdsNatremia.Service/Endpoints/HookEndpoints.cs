@@ -2,6 +2,7 @@ using System.Text.Json;
 using System.Text.Json.Nodes;
 using CdsNatremia.Service.Configuration;
 using CdsNatremia.Service.Hooks;
+using CdsNatremia.Service.Security;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
 
@@ -23,6 +24,7 @@ internal static class HookEndpoints
         HookHandler handler,
         CardResponseWriter writer,
         IOptions<NatremiaServiceOptions> options,
+        IOptions<InputLimitsOptions> limits,
         CancellationToken cancellationToken)
     {
         var service = catalog.Find(id);
@@ -50,6 +52,11 @@ internal static class HookEndpoints
 
         using (document)
         {
+            if (BundleEntryCounter.Exceeds(document.RootElement, limits.Value.MaxBundleEntries, out var entries))
+            {
+                return Problems.Of(StatusCodes.Status413PayloadTooLarge, "Too many Bundle entries", [$"Prefetch and context together hold more than {limits.Value.MaxBundleEntries} Bundle entries (counted {entries} before stopping); this service reads at most that many. Narrow the prefetch queries or send fewer draft orders."]);
+            }
+
             var outcome = await handler.HandleAsync(service, document.RootElement, cancellationToken).ConfigureAwait(false);
             switch (outcome)
             {
@@ -59,6 +66,7 @@ internal static class HookEndpoints
                     return Problems.Of(StatusCodes.Status412PreconditionFailed, "Required data not available", missing.Problems);
                 case HookOutcome.Cards cards:
                     var (body, _) = writer.Write(cards.Items, cards.PatientId, cards.Now);
+                    RequestLogItems.NoteCards(http.HttpContext, cards.Items);
                     return TypedResults.Ok(body);
                 default:
                     throw new InvalidOperationException("Unknown hook outcome.");
