@@ -12,9 +12,9 @@ internal static class ConfigurationJson
     public static string? Read(IConfigurationSection section)
     {
         ArgumentNullException.ThrowIfNull(section);
-        if (section.Value is { } text)
+        if (!string.IsNullOrEmpty(section.Value))
         {
-            return text;
+            return section.Value;
         }
 
         return section.GetChildren().Any() ? Node(section)!.ToJsonString() : null;
