@@ -112,7 +112,6 @@ internal sealed class ClientAuthenticator
             IssuerSigningKey = key.Key,
             TryAllIssuerSigningKeys = false,
             ValidAlgorithms = _algorithms,
-            ValidTypes = ["JWT"],
             RequireSignedTokens = true,
             RequireAudience = true,
 
