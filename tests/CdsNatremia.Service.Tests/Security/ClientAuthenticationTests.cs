@@ -62,6 +62,7 @@ public sealed class ClientAuthenticationTests : IClassFixture<TrustedClientFixtu
         var client = _host.CreateClient();
         Assert.Equal(HttpStatusCode.Unauthorized, (await client.GetAsync("/cds-services")).StatusCode);
         Assert.Equal(HttpStatusCode.Unauthorized, (await client.PostAsync(ServicePath + "/feedback", new StringContent("{}", Encoding.UTF8, "application/json"))).StatusCode);
+        Assert.Equal(HttpStatusCode.Unauthorized, (await client.PostAsync("/CDS-Services/" + Service, new StringContent("{}", Encoding.UTF8, "application/json"))).StatusCode); // routing ignores case; so does the guard
         Assert.Equal(HttpStatusCode.OK, (await client.GetAsync("/healthz")).StatusCode); // probes stay open
     }
 
@@ -89,6 +90,30 @@ public sealed class ClientAuthenticationTests : IClassFixture<TrustedClientFixtu
         Assert.Contains(logged, refusal, StringComparison.OrdinalIgnoreCase);
         Assert.DoesNotContain(authorization.Split('.')[0], refusal, StringComparison.Ordinal);
     }
+
+    [Theory]
+    [InlineData("{\"alg\":123,\"typ\":\"JWT\",\"kid\":\"test-ec-1\"}", "{}")]
+    [InlineData("{\"alg\":\"ES384\",\"typ\":\"JWT\",\"kid\":[1]}", "{}")]
+    [InlineData("{\"alg\":\"ES384\",\"typ\":7,\"kid\":\"test-ec-1\"}", "{}")]
+    [InlineData("{\"alg\":\"ES384\",\"typ\":\"JWT\",\"kid\":\"test-ec-1\",\"jku\":42}", "{\"iss\":\"https://ehr.test.example\"}")]
+    [InlineData("{\"alg\":\"ES384\",\"typ\":\"JWT\",\"kid\":\"test-ec-1\"}", "{\"iss\":{\"x\":1}}")]
+    [InlineData("{\"alg\":\"ES384\",\"typ\":\"JWT\",\"kid\":\"test-ec-1\"}", "{\"iss\":\"https://ehr.test.example\",\"exp\":\"soon\",\"iat\":1e400}")]
+    [InlineData("[]", "[]")]
+    [InlineData("not json", "not json")]
+    public async Task MalformedTokenParts_401NeverA500(string header, string payload)
+    {
+        var token = Microsoft.IdentityModel.Tokens.Base64UrlEncoder.Encode(header) + "." + Microsoft.IdentityModel.Tokens.Base64UrlEncoder.Encode(payload) + ".c2ln";
+        Assert.Equal(HttpStatusCode.Unauthorized, (await PostAsync(token)).StatusCode);
+    }
+
+    [Theory]
+    [InlineData("..")]
+    [InlineData("a.b")]
+    [InlineData("a.b.c.d")]
+    [InlineData("a.b.c.d.e")]
+    [InlineData("Bearer")]
+    public async Task MalformedTokenShapes_401NeverA500(string token)
+        => Assert.Equal(HttpStatusCode.Unauthorized, (await PostAsync(token)).StatusCode);
 
     [Fact]
     public async Task ReplayedJti_SecondUseRefused()
