@@ -5,6 +5,7 @@ using CdsNatremia.Service.Audit;
 using CdsNatremia.Service.Endpoints;
 using CdsNatremia.Service.Hooks;
 using CdsNatremia.Service.Knowledge;
+using CdsNatremia.Service.Security;
 using Microsoft.Extensions.Options;
 
 namespace CdsNatremia.Service.Configuration;
@@ -32,6 +33,7 @@ public static class ServiceRegistration
         services.AddSingleton<CardResponseWriter>();
         services.AddSingleton<IPrefetchCompleter, NoFetchPrefetchCompleter>();
         services.AddSingleton<HookHandler>();
+        builder.AddNatremiaSecurity();
 
         var directory = KnowledgeDirectory.Resolve(
             builder.Configuration[NatremiaServiceOptions.Section + ":" + nameof(NatremiaServiceOptions.KnowledgeDirectory)],
@@ -51,8 +53,10 @@ public static class ServiceRegistration
     public static WebApplication UseNatremia(this WebApplication app)
     {
         ArgumentNullException.ThrowIfNull(app);
+        app.UseNatremiaRequestLog();
         app.UseExceptionHandler();
         app.UseStatusCodePages();
+        app.UseNatremiaSecurity();
         app.MapDiscovery();
         app.MapHooks();
         app.MapHealth();

@@ -1,6 +1,8 @@
 using System.Text.Json.Nodes;
 using CdsNatremia.Service.Hooks;
+using CdsNatremia.Service.Security;
 using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.Extensions.Options;
 
 namespace CdsNatremia.Service.Endpoints;
 
@@ -13,7 +15,7 @@ internal static class DiscoveryEndpoints
         return app;
     }
 
-    public static Ok<JsonObject> Discover(ServiceCatalog catalog)
+    public static Ok<JsonObject> Discover(ServiceCatalog catalog, IOptions<ClientAuthenticationOptions> authentication)
     {
         var services = new JsonArray();
         foreach (var service in catalog.Services)
@@ -32,7 +34,7 @@ internal static class DiscoveryEndpoints
                 ["id"] = service.Id,
                 ["prefetch"] = prefetch,
             };
-            if (service.UsageRequirements is { } usage)
+            if (OpenModeNotice.UsageRequirements(service.UsageRequirements, authentication.Value.TrustedClients.Count == 0) is { } usage)
             {
                 json["usageRequirements"] = usage;
             }

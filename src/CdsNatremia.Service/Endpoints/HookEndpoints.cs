@@ -3,6 +3,7 @@ using System.Text.Json.Nodes;
 using CdsNatremia.Service.Audit;
 using CdsNatremia.Service.Configuration;
 using CdsNatremia.Service.Hooks;
+using CdsNatremia.Service.Security;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
 
@@ -25,6 +26,7 @@ internal static class HookEndpoints
         CardResponseWriter writer,
         CardAudit audit,
         IOptions<NatremiaServiceOptions> options,
+        IOptions<InputLimitsOptions> limits,
         CancellationToken cancellationToken)
     {
         var service = catalog.Find(id);
@@ -52,6 +54,11 @@ internal static class HookEndpoints
 
         using (document)
         {
+            if (BundleEntryCounter.Exceeds(document.RootElement, limits.Value.MaxBundleEntries, out var entries))
+            {
+                return Problems.Of(StatusCodes.Status413PayloadTooLarge, "Too many Bundle entries", [$"Prefetch and context together hold more than {limits.Value.MaxBundleEntries} Bundle entries (counted {entries} before stopping); this service reads at most that many. Narrow the prefetch queries or send fewer draft orders."]);
+            }
+
             var outcome = await handler.HandleAsync(service, document.RootElement, cancellationToken).ConfigureAwait(false);
             switch (outcome)
             {
@@ -67,6 +74,7 @@ internal static class HookEndpoints
                         return Problems.Of(StatusCodes.Status503ServiceUnavailable, "Audit trail unavailable", ["The cards could not be recorded in the audit trail, so none are shown; try again shortly."]);
                     }
 
+                    RequestLogItems.NoteCards(http.HttpContext, cards.Items);
                     return TypedResults.Ok(body);
                 default:
                     throw new InvalidOperationException("Unknown hook outcome.");
