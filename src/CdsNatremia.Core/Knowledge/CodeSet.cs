@@ -54,11 +54,16 @@ public sealed class CodeSet
         if (Names.Count > 0)
         {
             // Whole words only: no letter or digit may touch the name on either side, so "indapamide" never matches "xindapamidex".
+            // Compiled: the set is built once at start-up and matched against every medicine of every request.
             var alternatives = string.Join("|", Names.Select(n => Regex.Escape(n).Replace("\\ ", "\\s+", StringComparison.Ordinal)));
             _names = new Regex(
                 $"(?<![\\p{{L}}\\p{{N}}])(?:{alternatives})(?![\\p{{L}}\\p{{N}}])",
-                RegexOptions.IgnoreCase | RegexOptions.CultureInvariant,
+                RegexOptions.IgnoreCase | RegexOptions.CultureInvariant | RegexOptions.Compiled,
                 TimeSpan.FromMilliseconds(50));
+
+            // Run it once now, at load time, so the compiled matcher's first-use cost is never paid inside a request's
+            // 50 ms match timeout (a timeout means "no match", so it must not be spent on start-up work).
+            WarmUp(_names, Names[0]);
         }
     }
 
@@ -102,6 +107,18 @@ public sealed class CodeSet
 
         return _prefixes.TryGetValue(code.System, out var prefixes)
             && prefixes.Any(p => value.StartsWith(p, StringComparison.OrdinalIgnoreCase));
+    }
+
+    private static void WarmUp(Regex names, string sample)
+    {
+        try
+        {
+            names.IsMatch(sample);
+        }
+        catch (RegexMatchTimeoutException)
+        {
+            // Start-up on a starved machine: the matcher is ready all the same.
+        }
     }
 
     /// <summary>ICD-10 codes are compared without their dot ("K74.6" and "K746" are the same code); others as sent, trimmed.</summary>
