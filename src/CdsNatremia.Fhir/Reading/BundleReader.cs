@@ -7,7 +7,8 @@ namespace CdsNatremia.Fhir.Reading;
 /// <summary>
 /// Reads a prefetch value (or a fetched search result): null, a Bundle, a single resource, or an OperationOutcome.
 /// A Bundle is split into entries and each resource is parsed on its own, so one bad entry is set aside without
-/// losing the others. Each resource is parsed from the request's own UTF-8 bytes (no copy to a string and back). OperationOutcome entries (search mode "outcome") become notes, never data.
+/// losing the others. Each resource is parsed from the request's own UTF-8 bytes (no copy to a string and back).
+/// OperationOutcome entries (search mode "outcome") become notes, never data.
 /// </summary>
 public sealed class BundleReader
 {
