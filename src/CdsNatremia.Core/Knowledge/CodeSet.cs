@@ -54,14 +54,18 @@ public sealed class CodeSet
         if (Names.Count > 0)
         {
             // Whole words only: no letter or digit may touch the name on either side, so "indapamide" never matches "xindapamidex".
+            // Compiled: the set is built once at start-up and matched against every medicine of every request.
             // No match timeout: the pattern is an alternation of escaped literals (words joined by \s+) between
             // one-character lookarounds, so matching is linear in the text and cannot backtrack catastrophically. A
-            // timeout here made a busy server silently miss a drug name (a timed-out match read as "no match").
+            // timeout here would make a busy server silently miss a drug name (a timed-out match reads as "no match").
             var alternatives = string.Join("|", Names.Select(n => Regex.Escape(n).Replace("\\ ", "\\s+", StringComparison.Ordinal)));
             _names = new Regex(
                 $"(?<![\\p{{L}}\\p{{N}}])(?:{alternatives})(?![\\p{{L}}\\p{{N}}])",
-                RegexOptions.IgnoreCase | RegexOptions.CultureInvariant,
+                RegexOptions.IgnoreCase | RegexOptions.CultureInvariant | RegexOptions.Compiled,
                 Regex.InfiniteMatchTimeout);
+
+            // Run it once now, at load time, so the compiled matcher's first-use cost is paid at start-up, not in a request.
+            WarmUp(_names, Names[0]);
         }
     }
 
@@ -106,6 +110,8 @@ public sealed class CodeSet
         return _prefixes.TryGetValue(code.System, out var prefixes)
             && prefixes.Any(p => value.StartsWith(p, StringComparison.OrdinalIgnoreCase));
     }
+
+    private static void WarmUp(Regex names, string sample) => _ = names.IsMatch(sample);
 
     /// <summary>ICD-10 codes are compared without their dot ("K74.6" and "K746" are the same code); others as sent, trimmed.</summary>
     private static string Normalize(string system, string code)

@@ -7,7 +7,8 @@ namespace CdsNatremia.Fhir.Reading;
 /// <summary>
 /// Reads a prefetch value (or a fetched search result): null, a Bundle, a single resource, or an OperationOutcome.
 /// A Bundle is split into entries and each resource is parsed on its own, so one bad entry is set aside without
-/// losing the others. OperationOutcome entries (search mode "outcome") become notes, never data.
+/// losing the others. Each resource is parsed from the request's own UTF-8 bytes (no copy to a string and back).
+/// OperationOutcome entries (search mode "outcome") become notes, never data.
 /// </summary>
 public sealed class BundleReader
 {
@@ -40,7 +41,7 @@ public sealed class BundleReader
             case "Bundle":
                 return ReadBundle(key, source, value, origin);
             default:
-                var single = _parser.TryParse(value.GetRawText(), out var problem);
+                var single = _parser.TryParse(value, out var problem);
                 return single is null
                     ? Unusable(key, $"{source}: the {type} could not be read as FHIR R4 ({problem})")
                     : new PrefetchValue(key, PrefetchValueKind.Data, [new ParsedResource(single, null, source, origin)], []);
@@ -79,7 +80,7 @@ public sealed class BundleReader
         }
 
         var fullUrl = entry.TryGetProperty("fullUrl", out var fu) && fu.ValueKind == JsonValueKind.String ? fu.GetString() : null;
-        var resource = _parser.TryParse(raw.GetRawText(), out var problem);
+        var resource = _parser.TryParse(raw, out var problem);
         if (resource is null)
         {
             var type = raw.TryGetProperty("resourceType", out var rt) && rt.ValueKind == JsonValueKind.String ? rt.GetString() : "resource";

@@ -32,19 +32,18 @@ public sealed class ObservationReader
             return false;
         }
 
-        var reference = "Observation/" + (observation.Id ?? "(no id)");
         var time = FhirTime.From(observation.Effective) ?? FhirTime.From(observation.IssuedElement);
-        var describedValue = Describe(observation);
 
+        // The reference and the described value are only needed when a result is set aside: built then, not for every result.
         if (LoincCatalog.IsRefused(code, out var refusedAnalyte, out var refusedReason))
         {
-            setAside = new SetAsideItem(reference, $"LOINC {code} {describedValue}", refusedReason, refusedAnalyte, time);
+            setAside = new SetAsideItem(ReferenceOf(observation), $"LOINC {code} {Describe(observation)}", refusedReason, refusedAnalyte, time);
             return true;
         }
 
         LoincCatalog.TryGet(code, out var entry);
-        var what = $"{AnalyteUnits.DisplayName(entry.Analyte)} {describedValue}";
-        SetAsideItem Aside(string reason) => new(reference, what, reason, entry.Analyte, time);
+        SetAsideItem Aside(string reason)
+            => new(ReferenceOf(observation), $"{AnalyteUnits.DisplayName(entry.Analyte)} {Describe(observation)}", reason, entry.Analyte, time);
 
         if (string.IsNullOrEmpty(observation.Id))
         {
@@ -142,6 +141,8 @@ public sealed class ObservationReader
         => !string.IsNullOrWhiteSpace(quantity.Code) && (quantity.System is null || quantity.System == CodeSystems.Ucum)
             ? quantity.Code
             : quantity.Unit;
+
+    private static string ReferenceOf(Observation observation) => "Observation/" + (observation.Id ?? "(no id)");
 
     private static string StatusText(Observation observation) => observation.StatusElement?.JsonValue as string ?? "missing";
 

@@ -1,3 +1,5 @@
+using System.Runtime.InteropServices;
+using System.Text.Json;
 using Hl7.Fhir.Model;
 using Hl7.Fhir.Serialization;
 
@@ -11,12 +13,32 @@ public sealed class ResourceParser
 {
     private readonly FhirJsonDeserializer _deserializer = new(new DeserializerSettings().UsingMode(DeserializationMode.Recoverable));
 
+    /// <summary>
+    /// The reader options Firely itself uses when it parses a string (comments skipped, trailing commas allowed,
+    /// default depth), so that parsing an element's bytes accepts and refuses exactly what parsing its text would.
+    /// </summary>
+    private static readonly JsonReaderOptions ReaderOptions = new() { CommentHandling = JsonCommentHandling.Skip, AllowTrailingCommas = true };
+
     /// <summary>Parses a resource, or returns null with the first problem in plain words.</summary>
     public Resource? TryParse(string json, out string? problem)
     {
+        ArgumentNullException.ThrowIfNull(json);
+        return TryParse(System.Text.Encoding.UTF8.GetBytes(json), out problem);
+    }
+
+    /// <summary>
+    /// Parses a resource straight from an element of a parsed request, without copying it to a string and back:
+    /// the element's own UTF-8 bytes are read. Same outcome as <see cref="TryParse(string, out string?)"/> on
+    /// <see cref="JsonElement.GetRawText"/>. The element's document must stay alive during the call.
+    /// </summary>
+    public Resource? TryParse(JsonElement element, out string? problem) => TryParse(JsonMarshal.GetRawUtf8Value(element), out problem);
+
+    private Resource? TryParse(ReadOnlySpan<byte> utf8, out string? problem)
+    {
         try
         {
-            var ok = _deserializer.TryDeserializeResource(json, out var resource, out var issues);
+            var reader = new Utf8JsonReader(utf8, ReaderOptions);
+            var ok = _deserializer.TryDeserializeResource(ref reader, out var resource, out var issues);
             var first = issues?.FirstOrDefault();
             if (ok && resource is not null && first is null)
             {
