@@ -2,6 +2,7 @@ using CdsNatremia.Core.Engine;
 using CdsNatremia.Fhir.Knowledge;
 using CdsNatremia.Fhir.Reading;
 using CdsNatremia.Service.Endpoints;
+using CdsNatremia.Service.Fetching;
 using CdsNatremia.Service.Hooks;
 using CdsNatremia.Service.Knowledge;
 using Microsoft.Extensions.Options;
@@ -29,7 +30,7 @@ public static class ServiceRegistration
         services.AddSingleton(sp => new FactsAssembler(sp.GetRequiredService<IOptions<RuleOptions>>().Value.Reading));
         services.AddSingleton<ServiceCatalog>();
         services.AddSingleton<CardResponseWriter>();
-        services.AddSingleton<IPrefetchCompleter, NoFetchPrefetchCompleter>();
+        services.AddFhirFetching(builder.Configuration);
         services.AddSingleton<HookHandler>();
 
         var directory = KnowledgeDirectory.Resolve(
