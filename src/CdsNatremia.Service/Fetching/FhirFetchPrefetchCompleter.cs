@@ -216,7 +216,7 @@ internal sealed class FhirFetchPrefetchCompleter : IPrefetchCompleter
         {
             (failure, outcome) = result.Failure switch
             {
-                BrokenCircuitException => (Invariant($"not fetched: calls to this FHIR server are paused after repeated failures (circuit open, for up to {_options.BreakDuration.TotalSeconds:0} s)"), "circuit open"),
+                BrokenCircuitException => (Invariant($"{(result.Attempts == 0 ? "not fetched: " : string.Empty)}calls to this FHIR server are paused after repeated failures (circuit open, for up to {_options.BreakDuration.TotalSeconds:0} s)"), "circuit open"),
                 TimeoutRejectedException => (Invariant($"the FHIR server did not answer within {_options.AttemptTimeout.TotalMilliseconds:0} ms ({Attempts(result.Attempts)})"), "attempt time-out"),
                 HttpRequestException => ($"the FHIR server could not be reached ({Attempts(result.Attempts)})", "unreachable"),
                 _ => ("the connection to the FHIR server broke while its answer was being read", "connection broken"),

@@ -1,6 +1,7 @@
 using System.Net;
 using System.Net.Sockets;
 using System.Text.Json.Nodes;
+using CdsNatremia.Scenarios;
 using WireMock.Logging;
 using WireMock.Matchers;
 using WireMock.RequestBuilders;
@@ -52,7 +53,7 @@ public sealed class FhirServerFake : IDisposable
 
     /// <summary>A search for Observations whose code parameter holds this code.</summary>
     public static IRequestBuilder ObservationsWithCode(string code)
-        => Request.Create().WithPath("/fhir/Observation").WithParam("code", new WildcardMatcher("*" + code + "*")).UsingGet();
+        => Request.Create().WithPath("/fhir/Observation").WithUrl(new WildcardMatcher("*" + code + "*")).UsingGet();
 
     public static IResponseBuilder Fhir(JsonNode body, int status = 200)
         => Response.Create().WithStatusCode(status).WithHeader("Content-Type", FhirJson).WithBody(body.ToJsonString());
@@ -92,7 +93,41 @@ public sealed class FhirServerFake : IDisposable
         ["valueQuantity"] = new JsonObject { ["value"] = value, ["unit"] = "mmol/L", ["system"] = "http://unitsofmeasure.org", ["code"] = "mmol/L" },
     };
 
+    /// <summary>
+    /// Serves a scenario's data as the EHR's FHIR server would: the patient by id, and each search of the service's
+    /// templates answered with that key's part of the scenario (split as prefetch would be), Medications marked "include".
+    /// </summary>
+    public void ServeScenario(Scenario scenario)
+    {
+        ArgumentNullException.ThrowIfNull(scenario);
+        var entries = JsonNode.Parse(scenario.BundleJson)!["entry"]!.AsArray().Select(e => e!["resource"]!.AsObject()).ToList();
+        var prefetch = HookRequestBuilder.Prefetch(entries);
+        Server.Given(Search("Patient/" + scenario.PatientId)).RespondWith(Fhir(prefetch["patient"]!));
+        Server.Given(ObservationsWithCode("2951-2")).RespondWith(Fhir(Searchset(prefetch["sodium"]!)));
+        Server.Given(ObservationsWithCode("29463-7")).RespondWith(Fhir(Searchset(prefetch["weight"]!)));
+        Server.Given(ObservationsWithCode("2692-2")).RespondWith(Fhir(Searchset(prefetch["labs"]!)));
+        Server.Given(Search("Condition")).RespondWith(Fhir(Searchset(prefetch["conditions"]!)));
+        Server.Given(Search("MedicationStatement")).RespondWith(Fhir(Searchset(prefetch["medicationStatements"]!)));
+        Server.Given(Search("MedicationRequest")).RespondWith(Fhir(Searchset(prefetch["medicationRequests"]!)));
+    }
+
+    /// <summary>Requests for Observations whose code parameter holds this code.</summary>
+    public int CountOfObservations(string code)
+        => Requests.Count(r => r.RequestMessage.Path == "/fhir/Observation" && (r.RequestMessage.RawQuery ?? string.Empty).Contains(code, StringComparison.Ordinal));
+
     public void Dispose() => Server.Stop();
+
+    private static JsonObject Searchset(JsonNode bundle)
+    {
+        var copy = bundle.DeepClone().AsObject();
+        foreach (var entry in copy["entry"]?.AsArray() ?? [])
+        {
+            var type = (string?)entry!["resource"]!["resourceType"];
+            entry["search"] = new JsonObject { ["mode"] = type == "Medication" ? "include" : "match" };
+        }
+
+        return copy;
+    }
 
     private static int FreePort()
     {
