@@ -3,6 +3,7 @@ using System.Net;
 using System.Text.Json.Nodes;
 using CdsNatremia.Scenarios;
 using CdsNatremia.Service.Tests.Support;
+using Xunit.Abstractions;
 
 namespace CdsNatremia.Service.Tests.Fetching;
 
@@ -136,9 +137,10 @@ public sealed class FetchingHookTests(ITestOutputHelper output) : IDisposable
     public async Task Hook_FhirServerSlowerThanTheBudget_412WellBeforeTheServerAnswers()
     {
         _fhir.Server.Given(FhirServerFake.Search("*")).RespondWith(FhirServerFake.Status(200).WithDelay(TimeSpan.FromSeconds(8)));
-        using var factory = Factory(_fhir.BaseUrl, defaultBudget: true);
+        var warmUp = _fhir.Origin + "/warm-up"; // answers 404 at once: compiles the fetch path before the timed call
+        using var factory = NatremiaFactory.With(new() { ["Natremia:Fetching:AllowedServers:0"] = _fhir.BaseUrl, ["Natremia:Fetching:AllowedServers:1"] = warmUp });
         var client = factory.CreateClient();
-        await client.GetAsync(new Uri("/cds-services", UriKind.Relative));
+        await HookCalls.PostAsync(client, ServiceId, Request(Thiazide, warmUp, includePrefetch: false));
 
         var watch = Stopwatch.StartNew();
         var response = await HookCalls.PostAsync(client, ServiceId, Request(Thiazide, _fhir.BaseUrl, includePrefetch: false));
