@@ -28,7 +28,7 @@ public sealed class FhirFetchOptions
     /// <summary>
     /// Time for the whole fetch of one hook request (all keys, pages, retries and back-off). Default 400 ms: the
     /// CDS Hooks standard asks services to answer in about 500 ms, and 100 ms is kept for reading, assessing and
-    /// writing the cards (measured well under 50 ms for the scenario library on a 2-core machine).
+    /// writing the cards.
     /// </summary>
     [Range(typeof(TimeSpan), "00:00:00.050", "00:01:00")]
     public TimeSpan Budget { get; set; } = TimeSpan.FromMilliseconds(400);

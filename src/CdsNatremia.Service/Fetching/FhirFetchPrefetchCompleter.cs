@@ -130,6 +130,14 @@ internal sealed class FhirFetchPrefetchCompleter : IPrefetchCompleter
                 outcome = "deadline";
                 break;
             }
+            catch (Exception ex) when (ex is not OperationCanceledException)
+            {
+                // Defence in depth: whatever else goes wrong on the way to the EHR's server is a failed key, never a 500.
+                // Only the exception's type is reported: its message could quote a URL, which names the patient.
+                failure = $"the fetch failed unexpectedly ({ex.GetType().Name})";
+                outcome = "failed";
+                break;
+            }
 
             attempts += result.Attempts;
             status = result.Response?.Status ?? status;
@@ -144,6 +152,7 @@ internal sealed class FhirFetchPrefetchCompleter : IPrefetchCompleter
                 if (pages == 0)
                 {
                     whole = page;
+                    pages = 1;
                 }
                 else
                 {

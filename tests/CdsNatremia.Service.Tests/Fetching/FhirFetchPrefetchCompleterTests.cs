@@ -156,13 +156,18 @@ public sealed class FhirFetchPrefetchCompleterTests : IDisposable
 
         var fetch = harness.FetchAsync(_fhir.BaseUrl, PrefetchKeys.Sodium);
         await Eventually(() => _fhir.CountOf("Observation") == 1);
-        await Task.Delay(500); // let the retry strategy start its wait on the fake clock
-        clock.Advance(TimeSpan.FromSeconds(5));
-        await Task.Delay(300);
-        Assert.Equal(1, _fhir.CountOf("Observation"));
-        clock.Advance(TimeSpan.FromSeconds(5));
-        var value = await fetch.WaitAsync(TimeSpan.FromSeconds(10));
+        // Move the fake clock one second at a time until the retry arrives: it must take at least the 10 s asked for.
+        var advanced = TimeSpan.Zero;
+        while (_fhir.CountOf("Observation") < 2 && advanced < TimeSpan.FromSeconds(50))
+        {
+            clock.Advance(TimeSpan.FromSeconds(1));
+            advanced += TimeSpan.FromSeconds(1);
+            await Task.Delay(100);
+        }
 
+        var value = await fetch.WaitAsync(TimeSpan.FromSeconds(30));
+
+        Assert.True(advanced >= TimeSpan.FromSeconds(10), $"retried after {advanced.TotalSeconds} s of fake time");
         Assert.Equal(PrefetchValueKind.Data, value.Kind);
         Assert.Equal(2, _fhir.CountOf("Observation"));
     }
@@ -387,7 +392,7 @@ public sealed class FhirFetchPrefetchCompleterTests : IDisposable
 
     private static async Task Eventually(Func<bool> condition)
     {
-        for (var i = 0; i < 100 && !condition(); i++)
+        for (var i = 0; i < 200 && !condition(); i++)
         {
             await Task.Delay(50);
         }
