@@ -3,6 +3,7 @@ using CdsNatremia.Fhir.Knowledge;
 using CdsNatremia.Fhir.Reading;
 using CdsNatremia.Service.Audit;
 using CdsNatremia.Service.Endpoints;
+using CdsNatremia.Service.Fetching;
 using CdsNatremia.Service.Hooks;
 using CdsNatremia.Service.Knowledge;
 using CdsNatremia.Service.Security;
@@ -31,7 +32,7 @@ public static class ServiceRegistration
         services.AddSingleton(sp => new FactsAssembler(sp.GetRequiredService<IOptions<RuleOptions>>().Value.Reading));
         services.AddSingleton<ServiceCatalog>();
         services.AddSingleton<CardResponseWriter>();
-        services.AddSingleton<IPrefetchCompleter, NoFetchPrefetchCompleter>();
+        services.AddFhirFetching(builder.Configuration);
         services.AddSingleton<HookHandler>();
         builder.AddNatremiaSecurity();
 

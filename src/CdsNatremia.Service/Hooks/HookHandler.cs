@@ -61,6 +61,16 @@ public sealed class HookHandler
         {
             var fetched = await _completer.CompleteAsync(service, request, toFetch, cancellationToken).ConfigureAwait(false);
             values.RemoveAll(v => toFetch.Contains(v.Key) && fetched.Any(f => f.Key == v.Key && f.Kind != PrefetchValueKind.Failed));
+            foreach (var failed in fetched.Where(f => f.Kind == PrefetchValueKind.Failed))
+            {
+                // The EHR's OperationOutcome and the fetch's failure both explain why the data is missing: keep both.
+                var index = values.FindIndex(v => v.Key == failed.Key);
+                if (index >= 0)
+                {
+                    values[index] = values[index] with { Problems = [.. values[index].Problems, .. failed.Problems] };
+                }
+            }
+
             values.AddRange(fetched.Where(f => f.Kind != PrefetchValueKind.Failed || values.All(v => v.Key != f.Key)));
         }
 
