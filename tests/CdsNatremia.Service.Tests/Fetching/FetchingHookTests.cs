@@ -123,7 +123,6 @@ public sealed class FetchingHookTests(ITestOutputHelper output) : IDisposable
         Assert.Equal(HttpStatusCode.PreconditionFailed, response.StatusCode);
         var text = await response.Content.ReadAsStringAsync();
         Assert.Contains("FHIR server query 'sodium'", text, StringComparison.Ordinal);
-        Assert.Contains("FHIR server query 'patient'", text, StringComparison.Ordinal);
         // Refused connections are reported as such until the server's circuit opens (7 keys x 3 attempts can open it within
         // this one request); on a saturated machine the deadline may come first. All three are true reasons.
         Assert.True(new[] { "could not be reached", "circuit open", "time budget" }.Any(r => text.Contains(r, StringComparison.Ordinal)), text);

@@ -93,7 +93,7 @@ public sealed class PatientDataLoggingTests : IDisposable
         Assert.Contains("service natremia-chart-review", line, StringComparison.Ordinal);
         Assert.Contains($"client {TestClientKeys.Issuer}", line, StringComparison.Ordinal);
         Assert.Contains("200 in", line, StringComparison.Ordinal);
-        Assert.Contains("rules sodium.", line, StringComparison.Ordinal); // rule ids of the cards issued
+        Assert.Matches(@"rules \S*sodium\.assessment", line); // rule ids of the cards issued
         Assert.Matches(@"Request \S+ POST /cds-services/\{id\}", line);
     }
 

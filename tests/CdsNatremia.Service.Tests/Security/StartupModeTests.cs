@@ -9,10 +9,15 @@ namespace CdsNatremia.Service.Tests.Security;
 /// <summary>Which configurations may start, and what the service says about running without authentication.</summary>
 public sealed class StartupModeTests
 {
+    // Outside Development the audit trail also needs its pseudonym key; it is set here so that the only thing missing
+    // is what each test is about.
+    private const string PseudonymKeySetting = "Natremia:Audit:PseudonymKey";
+    private static readonly string PseudonymKey = new('k', 48);
+
     [Fact]
     public void Production_WithoutTrustedClients_RefusesToStartWithAClearMessage()
     {
-        using var factory = NatremiaFactory.With(new());
+        using var factory = NatremiaFactory.With(new() { [PseudonymKeySetting] = PseudonymKey });
         using var production = factory.WithWebHostBuilder(b => b.UseEnvironment("Production"));
         var message = AllMessages(Assert.ThrowsAny<Exception>(() => production.CreateClient()));
         Assert.Contains("TrustedClients is empty", message, StringComparison.Ordinal);
@@ -22,7 +27,7 @@ public sealed class StartupModeTests
     [Fact]
     public void Staging_WithoutTrustedClients_RefusesToStartToo()
     {
-        using var factory = NatremiaFactory.With(new());
+        using var factory = NatremiaFactory.With(new() { [PseudonymKeySetting] = PseudonymKey });
         using var staging = factory.WithWebHostBuilder(b => b.UseEnvironment("Staging"));
         Assert.Contains("TrustedClients is empty", AllMessages(Assert.ThrowsAny<Exception>(() => staging.CreateClient())), StringComparison.Ordinal);
     }
@@ -31,7 +36,9 @@ public sealed class StartupModeTests
     public async Task Production_WithATrustedClient_StartsAndDemandsTokens()
     {
         using var keys = new TestClientKeys();
-        using var factory = NatremiaFactory.With(keys.InlineSettings());
+        var settings = keys.InlineSettings();
+        settings[PseudonymKeySetting] = PseudonymKey;
+        using var factory = NatremiaFactory.With(settings);
         using var production = factory.WithWebHostBuilder(b => b.UseEnvironment("Production"));
         var client = production.CreateClient();
         Assert.Equal(HttpStatusCode.Unauthorized, (await client.GetAsync("/cds-services")).StatusCode);
