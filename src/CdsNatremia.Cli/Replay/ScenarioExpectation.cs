@@ -4,7 +4,8 @@ namespace CdsNatremia.Cli.Replay;
 
 /// <summary>
 /// Compares a replayed answer with what the scenario manifest expects: a card or none; for the patient-view and result
-/// hooks, the sodium assessment card's severity band (the summary names it, e.g. "(profound") and indicator.
+/// hooks, the sodium assessment card's severity band (the summary names it, e.g. "(profound") and indicator; for the
+/// order hooks, a card with the expected indicator.
 /// </summary>
 internal static class ScenarioExpectation
 {
@@ -25,6 +26,11 @@ internal static class ScenarioExpectation
             if (scenario.ExpectsCard && result.Cards.Count == 0)
             {
                 problems.Add("expected a card, got none");
+            }
+            else if (scenario.ExpectsCard && scenario.ExpectedIndicator is { } expected
+                && result.Cards.All(c => (string?)c?["indicator"] != expected))
+            {
+                problems.Add($"expected a card with indicator {expected}, got {string.Join(", ", result.Cards.Select(c => (string?)c?["indicator"]))}");
             }
 
             return problems;

@@ -36,10 +36,10 @@ public class ProgramTests
         => Assert.Equal(expected, await Program.Main(args));
 
     [Fact]
-    public async Task ReplayAll_InProcessAtTheAnchor_AssessmentScenariosAsExpected()
+    public async Task Replay_InProcessAtTheAnchor_EachHookAsExpected()
     {
-        // The order scenarios' cards come with another issue; replaying the assessment scenarios one by one must pass.
-        foreach (var id in new[] { "01", "11", "13" })
+        // One scenario per hook: patient-view, the result hook, a normal sodium, order-sign and order-select.
+        foreach (var id in new[] { "01", "11", "13", "16", "17" })
         {
             Assert.Equal(ExitCodes.Ok, await Program.Main(["replay", id, "--in-process", "--as-of", "anchor", "--json"]));
         }
