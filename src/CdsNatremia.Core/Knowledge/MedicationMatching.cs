@@ -1,3 +1,5 @@
+using System.Collections.Concurrent;
+using System.Runtime.CompilerServices;
 using CdsNatremia.Core.Facts;
 
 namespace CdsNatremia.Core.Knowledge;
@@ -9,11 +11,24 @@ namespace CdsNatremia.Core.Knowledge;
 /// </summary>
 public static class MedicationMatching
 {
+    /// <summary>
+    /// Several rules ask the same question of the same medication in one request (diuretic in use for the urine
+    /// studies, the volume clues and the SIADH checklist; drug causes). The answer is a pure function of the two
+    /// immutable objects, so it is remembered per medication instance and forgotten with it (weak keys).
+    /// </summary>
+    private static readonly ConditionalWeakTable<MedicationFact, ConcurrentDictionary<CodeSet, MedicationMatch?>> Remembered = [];
+
     /// <summary>The match, or null when the medication is not in the set.</summary>
     public static MedicationMatch? Match(CodeSet set, MedicationFact medication)
     {
         Guard.NotNull(set, nameof(set));
         Guard.NotNull(medication, nameof(medication));
+        var answers = Remembered.GetValue(medication, static _ => new ConcurrentDictionary<CodeSet, MedicationMatch?>(ReferenceEqualityComparer.Instance));
+        return answers.TryGetValue(set, out var known) ? known : answers.GetOrAdd(set, Compute(set, medication));
+    }
+
+    private static MedicationMatch? Compute(CodeSet set, MedicationFact medication)
+    {
         foreach (var ingredient in medication.Ingredients)
         {
             foreach (var code in ingredient.Codes)
