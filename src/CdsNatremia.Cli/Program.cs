@@ -37,6 +37,8 @@ internal static class Program
                 .WithExample("conform", "--url", "http://127.0.0.1:5080");
             config.AddCommand<LoadCommand>("load").WithDescription("Load test: concurrent requests for a bounded time or count; latency percentiles and errors.")
                 .WithExample("load", "--url", "http://127.0.0.1:5080", "--duration", "30", "--output", "load.json");
+            config.AddCommand<ReportCommand>("report").WithDescription("The override report of a running service: per rule, cards shown, accepted and overridden, and why; optional SVG chart.")
+                .WithExample("report", "--url", "http://127.0.0.1:5080", "--from", "2026-11-01", "--to", "2026-11-30", "--chart", "overrides.svg");
             config.AddCommand<CheckInputCommand>("check-input").WithDescription("Explain, per resource of a Bundle, whether the service will use it and why not.")
                 .WithExample("check-input", "patient.json");
             config.SetExceptionHandler((exception, _) =>
