@@ -32,26 +32,10 @@ internal static class FeedbackEndpoints
         IOptions<NatremiaServiceOptions> options,
         CancellationToken cancellationToken)
     {
-        var service = catalog.Find(id);
-        if (service is null)
+        var (service, document, problem) = await CdsRequestReader.ReadAsync(id, http, catalog, options.Value.MaxJsonDepth, cancellationToken).ConfigureAwait(false);
+        if (problem is not null || service is null || document is null)
         {
-            return Problems.Of(StatusCodes.Status404NotFound, "Unknown service", [$"No CDS service has the id '{Clip(id)}'. GET /cds-services lists the services."]);
-        }
-
-        if (!http.HasJsonContentType())
-        {
-            return Problems.Of(StatusCodes.Status415UnsupportedMediaType, "Unsupported media type", ["The request body must be JSON (Content-Type: application/json)."]);
-        }
-
-        JsonDocument document;
-        try
-        {
-            document = await JsonDocument.ParseAsync(http.Body, new JsonDocumentOptions { MaxDepth = options.Value.MaxJsonDepth }, cancellationToken).ConfigureAwait(false);
-        }
-        catch (JsonException ex)
-        {
-            var where = ex.LineNumber is { } line ? $" (line {line + 1}, position {ex.BytePositionInLine + 1})" : string.Empty;
-            return Problems.Of(StatusCodes.Status400BadRequest, "Malformed JSON", [$"The request body is not valid JSON{where}."]);
+            return problem!;
         }
 
         using (document)
@@ -84,5 +68,4 @@ internal static class FeedbackEndpoints
         }
     }
 
-    private static string Clip(string text) => text.Length <= 64 ? text : text[..64] + "…";
 }
