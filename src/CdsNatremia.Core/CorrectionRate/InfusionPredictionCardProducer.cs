@@ -172,6 +172,12 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
                 indicator = CardIndicator.Critical;
                 verdict = Invariant.Format($"would exceed the {RateText.Mmol(remaining)} left");
             }
+            else if (total < 0)
+            {
+                // A fluid whose sodium plus potassium is below the serum sodium lowers sodium further (Adrogué–Madias numerator).
+                indicator = CardIndicator.Warning;
+                verdict = Invariant.Format($"predicted to lower sodium further ({Signed(total)} mmol/L)");
+            }
             else if (total > 0 && total >= remaining - options.ApproachingWithinMmolPerL)
             {
                 indicator = CardIndicator.Warning;

@@ -36,9 +36,18 @@ public static class RateWindows
         var anchored = (at - nadir.EffectiveAt).TotalHours <= lengthHours;
         var start = anchored ? nadir.EffectiveAt : at.AddHours(-lengthHours);
         var end = anchored ? nadir.EffectiveAt.AddHours(lengthHours) : at;
+        if (!anchored && !highRisk && lengthHours <= 24 && limits.FirstDay != limits.LaterDay)
+        {
+            // A preset with a larger first-day limit (2014 European guideline: 10, then 8 in each 24 h after) counts days
+            // from the nadir: day 2 runs from nadir + 24 h to nadir + 48 h, and so on. A rolling window here would charge
+            // the first day's allowed rise against a later day's smaller limit and raise a false alarm.
+            var days = Math.Floor((at - nadir.EffectiveAt).TotalHours / 24);
+            start = nadir.EffectiveAt.AddHours(24 * days);
+            end = start.AddHours(24);
+        }
 
         var inRange = episode.Results.Where(r => r.EffectiveAt <= at).ToList();
-        var latest = inRange.Contains(episode.Latest) ? episode.Latest : inRange.Last();
+        var latest = inRange.Count == 0 || inRange.Contains(episode.Latest) ? episode.Latest : inRange[^1];
         LabResult baseline;
         if (anchored)
         {
@@ -46,14 +55,15 @@ public static class RateWindows
         }
         else
         {
-            var atStart = inRange.Where(r => r.EffectiveAt <= start).OrderBy(r => r.EffectiveAt).Last();
+            var atStart = inRange.Where(r => r.EffectiveAt <= start).OrderBy(r => r.EffectiveAt).LastOrDefault() ?? nadir;
             var candidates = inRange
                 .Where(r => r.EffectiveAt > start && CorrectionEpisode.Minute(r.EffectiveAt) < CorrectionEpisode.Minute(latest.EffectiveAt))
                 .Prepend(atStart);
             baseline = candidates.OrderBy(r => r.Value).ThenBy(r => r.EffectiveAt).First();
         }
 
-        var rise = latest.Value - baseline.Value;
+        // Rounded to 0.1 mmol/L, the precision cards print: 127.7 − 117.7 must read as 10, not 9.999999999999986.
+        var rise = Math.Round(latest.Value - baseline.Value, 1, MidpointRounding.AwayFromZero);
         var limit = lengthHours <= 24 ? limits.Day(anchored, highRisk) : limits.TwoDay(highRisk);
         var label = (lengthHours <= 24, anchored) switch
         {

@@ -36,7 +36,10 @@ public sealed class OnsetRule : IAssessmentRule
         Guard.NotNull(context, nameof(context));
         lastNormal = LastNormalBefore(context);
         hours = lastNormal is null ? null : (context.Sodium.Latest!.EffectiveAt - lastNormal.EffectiveAt).TotalHours;
-        return hours < context.Options.Workup.AcuteWithinHours;
+        // The fall must also be recent now: a low sodium whose last normal value is 48 h or more before this assessment
+        // may have lasted that long, and the guideline treats that as chronic even if no later result was taken.
+        var sinceNormalNow = lastNormal is null ? (double?)null : (context.Request.Now - lastNormal.EffectiveAt).TotalHours;
+        return hours < context.Options.Workup.AcuteWithinHours && sinceNormalNow < context.Options.Workup.AcuteWithinHours;
     }
 
     /// <inheritdoc />
@@ -66,7 +69,9 @@ public sealed class OnsetRule : IAssessmentRule
 
         var why = lastNormal is null
             ? "no normal sodium is on record before it"
-            : Invariant.Format($"the last normal sodium, {Cite.Result(lastNormal)}, was {WorkupData.Duration(hours!.Value)} before the low value, not within {Invariant.Number(window)} h");
+            : hours < window
+                ? Invariant.Format($"the last normal sodium, {Cite.Result(lastNormal)}, was {WorkupData.Duration(hours!.Value)} before the low value, but {WorkupData.Duration((context.Request.Now - lastNormal.EffectiveAt).TotalHours)} before this assessment, so the low sodium may have lasted {Invariant.Number(window)} h or more")
+                : Invariant.Format($"the last normal sodium, {Cite.Result(lastNormal)}, was {WorkupData.Duration(hours!.Value)} before the low value, not within {Invariant.Number(window)} h");
         card.Steps.Add(Invariant.Format(
             $"**Onset**: {why}: **chronic or of unknown duration**, which the 2014 European guideline treats as chronic (correction limits apply)."));
     }

@@ -65,16 +65,17 @@ public static class OsmolalityFormulas
         => sodiumMmolPerL + (HillierPer100MgPerDl * Excess(glucoseMgPerDl) / 100);
 
     /// <summary>
-    /// Hillier with the steeper slope: 2.4 per 100 mg/dL from 100 to 400 mg/dL and 4.0 per 100 mg/dL for the glucose above
-    /// 400 mg/dL. Applying 4.0 only to the part above 400 is this service's reading of the paper's note on non-linearity
-    /// (the sheet gives "4.0 above 400 mg/dL"); it is shown as a range, never used alone.
+    /// Hillier's piecewise reading (Hillier et al., Am J Med 1999;106:399, abstract): up to 400 mg/dL the standard
+    /// 1.6 per 100 mg/dL fitted well, and above 400 mg/dL a factor of 4.0 per 100 mg/dL was better; 2.4 is the paper's
+    /// single overall factor. So: 1.6 per 100 mg/dL from 100 to 400 mg/dL, plus 4.0 per 100 mg/dL for the glucose above
+    /// 400 mg/dL. Shown beside the single-factor values, never used alone.
     /// </summary>
     public static double HillierSteepCorrectedSodium(double sodiumMmolPerL, double glucoseMgPerDl)
     {
         var excess = Excess(glucoseMgPerDl);
         var low = Math.Min(excess, HillierSteepAboveMgPerDl - CorrectionBaselineMgPerDl);
         var high = Math.Max(0, glucoseMgPerDl - HillierSteepAboveMgPerDl);
-        return sodiumMmolPerL + (HillierPer100MgPerDl * low / 100) + (HillierSteepPer100MgPerDl * high / 100);
+        return sodiumMmolPerL + (KatzPer100MgPerDl * low / 100) + (HillierSteepPer100MgPerDl * high / 100);
     }
 
     private static double Excess(double glucoseMgPerDl) => Math.Max(0, glucoseMgPerDl - CorrectionBaselineMgPerDl);

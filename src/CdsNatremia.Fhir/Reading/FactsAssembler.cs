@@ -58,9 +58,11 @@ public sealed class FactsAssembler
             {
                 ReadOne(item);
             }
-            catch (Exception ex) when (ex is Hl7.Fhir.Utility.CodedException or FormatException or InvalidCastException or OverflowException)
+            catch (Exception ex) when (ex is Hl7.Fhir.Utility.CodedException or FormatException or InvalidCastException or OverflowException
+                or NullReferenceException or InvalidOperationException or ArgumentException)
             {
-                // Defence in depth: a value the parser let through but the model cannot interpret sets the resource aside.
+                // Defence in depth: a value the parser let through but the model cannot interpret (a wrong JSON type read
+                // lazily, a null inside a list) sets that one resource aside; it must never cost the patient the whole answer.
                 setAside.Add(new SetAsideItem($"{item.Resource.TypeName}/{item.Resource.Id}", item.Resource.TypeName, "a value in it could not be interpreted"));
             }
         }

@@ -25,14 +25,16 @@ public sealed class ObservationReader
         ArgumentNullException.ThrowIfNull(observation);
         result = null;
         setAside = null;
-        var coding = observation.Code?.Coding?.FirstOrDefault(c => c.System == CodeSystems.Loinc && c.Code is not null
+        var coding = observation.Code?.Coding?.FirstOrDefault(c => c is not null && c.System == CodeSystems.Loinc && c.Code is not null
             && (LoincCatalog.TryGet(c.Code, out _) || LoincCatalog.IsRefused(c.Code, out _, out _)));
         if (coding?.Code is not { } code)
         {
             return false;
         }
 
-        var time = FhirTime.From(observation.Effective) ?? FhirTime.From(observation.IssuedElement);
+        // Whole seconds: finer precision means nothing clinically, and a fraction below .NET's 100 ns tick would be
+        // rounded differently by different code paths.
+        var time = WholeSeconds(FhirTime.From(observation.Effective) ?? FhirTime.From(observation.IssuedElement));
 
         // The reference and the described value are only needed when a result is set aside: built then, not for every result.
         if (LoincCatalog.IsRefused(code, out var refusedAnalyte, out var refusedReason))
@@ -135,6 +137,9 @@ public sealed class ObservationReader
             origin);
         return true;
     }
+
+    private static DateTimeOffset? WholeSeconds(DateTimeOffset? time)
+        => time is { } t ? new DateTimeOffset(t.UtcTicks - (t.UtcTicks % TimeSpan.TicksPerSecond), TimeSpan.Zero) : null;
 
     /// <summary>The UCUM code when the system is UCUM (or absent), else the human unit string.</summary>
     private static string? UnitOf(Quantity quantity)

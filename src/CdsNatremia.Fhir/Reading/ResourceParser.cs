@@ -46,6 +46,9 @@ public sealed class ResourceParser
             var first = issues?.FirstOrDefault();
             if (ok && resource is not null && first is null)
             {
+                // Firely checks element types lazily: an id of the wrong JSON type only fails when read. Every caller
+                // reads the id, so read it here, where a failure refuses the resource instead of escaping later.
+                _ = resource.Id;
                 problem = null;
                 return resource;
             }

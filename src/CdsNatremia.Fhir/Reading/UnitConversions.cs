@@ -80,7 +80,7 @@ public static class UnitConversions
 
         canonical = value * factor;
         var (low, high) = Plausible[analyte];
-        if (canonical < low || canonical > high)
+        if (!double.IsFinite(canonical) || canonical < low || canonical > high)
         {
             reason = $"value is outside the plausible range for {AnalyteUnits.DisplayName(analyte).ToLowerInvariant()} ({low}–{high} {AnalyteUnits.CanonicalUnit(analyte)}): likely a unit or entry error";
             return false;

@@ -6,7 +6,7 @@ namespace CdsNatremia.Service.Endpoints;
 
 /// <summary>
 /// The checks every POST under /cds-services/{id} starts with, in one place so the hook and feedback endpoints answer
-/// the same way: unknown service → 404, not JSON → 415, malformed or too deep → 400 with the position.
+/// the same way: unknown service → 404, not JSON → 415, malformed, too deep or holding undecodable text → 400.
 /// </summary>
 internal static class CdsRequestReader
 {
@@ -28,6 +28,12 @@ internal static class CdsRequestReader
         try
         {
             var document = await JsonDocument.ParseAsync(http.Body, new JsonDocumentOptions { MaxDepth = maxDepth }, cancellationToken).ConfigureAwait(false);
+            if (!JsonStrings.AllDecodable(document.RootElement))
+            {
+                document.Dispose();
+                return (service, null, Problems.Of(StatusCodes.Status400BadRequest, "Malformed JSON", ["The request body holds a string with an invalid Unicode escape (a lone UTF-16 surrogate such as \\ud800)."]));
+            }
+
             return (service, document, null);
         }
         catch (JsonException ex)

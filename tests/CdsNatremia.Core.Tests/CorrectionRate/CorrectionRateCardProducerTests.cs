@@ -51,6 +51,24 @@ public class CorrectionRateCardProducerTests
     }
 
     [Fact]
+    public void Produce_DayTwoOfTheEuropeanPreset_FirstDayRiseNotChargedAgainstTheLaterLimit()
+    {
+        // 2014 European guideline (reference sheet): ≤ 10 mmol/L in the first 24 h after the nadir, ≤ 8 in each 24 h after.
+        // 110 at the nadir, 119 at 23 h (9 on day 1), 120 at 30 h (1 on day 2): within both; a rolling 24-h window from the
+        // nadir would have read 10 against 8 and raised a false critical card (found in review).
+        var cards = RateCards(Some.Facts(Some.Sodium(110, 31, id: "na-nadir"), Some.Sodium(119, 8), Some.Sodium(120, 1)));
+        Assert.DoesNotContain(cards, c => c.Indicator == CdsNatremia.Core.Cards.CardIndicator.Critical);
+    }
+
+    [Fact]
+    public void Produce_DayTwoRiseOfNine_CriticalAgainstTheLaterDayLimit()
+    {
+        // Same guideline: day 2 runs from nadir + 24 h; 112 at 24 h then 121 at 46 h is 9 > 8 in that day.
+        var cards = RateCards(Some.Facts(Some.Sodium(110, 48, id: "na-nadir"), Some.Sodium(112, 24), Some.Sodium(121, 2)));
+        Assert.Contains(cards, c => c.Indicator == CdsNatremia.Core.Cards.CardIndicator.Critical);
+    }
+
+    [Fact]
     public void Produce_SlowSafeRise_NoCard()
         => Assert.Empty(RateCards(Some.Facts(Some.Sodium(126, 21), Some.Sodium(130, 1))));
 

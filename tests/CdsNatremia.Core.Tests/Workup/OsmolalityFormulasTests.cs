@@ -66,12 +66,13 @@ public class OsmolalityFormulasTests
         => Assert.Equal(expected, OsmolalityFormulas.HillierCorrectedSodium(sodium, glucoseMgPerDl), precision: 6);
 
     [Theory]
-    // Hillier et al. 1999: the fall is steeper above 400 mg/dL (4.0 per 100 mg/dL; reference sheet). Applied to the part above 400:
-    // at or below 400 the same as 2.4; 500 → 2.4 × 3 + 4.0 × 1 = 11.2; 650 → 7.2 + 10 = 17.2.
-    [InlineData(130, 400, 137.2)]
-    [InlineData(130, 401, 137.24)]
-    [InlineData(130, 500, 141.2)]
-    [InlineData(128, 650, 145.2)]
+    // Hillier et al., Am J Med 1999;106:399 (abstract): up to 400 mg/dL the standard 1.6 per 100 mg/dL fitted well; above
+    // 400 mg/dL a factor of 4.0 was better (reference sheet: "4.0 above 400 mg/dL"). So 400 → 1.6 × 3 = 4.8;
+    // 401 → 4.8 + 0.04; 500 → 4.8 + 4.0 × 1 = 8.8; 650 → 4.8 + 10 = 14.8.
+    [InlineData(130, 400, 134.8)]
+    [InlineData(130, 401, 134.84)]
+    [InlineData(130, 500, 138.8)]
+    [InlineData(128, 650, 142.8)]
     public void HillierSteepCorrectedSodium_SteeperAbove400(double sodium, double glucoseMgPerDl, double expected)
         => Assert.Equal(expected, OsmolalityFormulas.HillierSteepCorrectedSodium(sodium, glucoseMgPerDl), precision: 6);
 

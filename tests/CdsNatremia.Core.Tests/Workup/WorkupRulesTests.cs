@@ -108,9 +108,20 @@ public class WorkupRulesTests
     [InlineData(60, false)]
     public void Onset_NormalSodiumBeforeTheLowOne_AcuteOnlyWithin48Hours(double hoursBetween, bool acute)
     {
-        var card = Card(Facts([.. Hypotonic(), Some.Sodium(140, hoursAgo: 2 + hoursBetween)]));
+        // The low value is 2 h old; the normal one is hoursBetween before now, so less than that before the low value.
+        var card = Card(Facts([.. Hypotonic(), Some.Sodium(140, hoursAgo: hoursBetween)]));
         Assert.Equal(acute, card.Detail.Contains("**acute**", StringComparison.Ordinal));
         Assert.Equal(!acute, card.Detail.Contains("**chronic or of unknown duration**", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Onset_FallWithin48HoursButNormalValueOlderThan48HoursNow_Chronic()
+    {
+        // 2014 European guideline: chronic when it has lasted ≥ 48 h (reference sheet). Normal 30 h before the low value,
+        // but the low value is 20 h old: the low sodium may have lasted 50 h by now.
+        var card = Card(Facts([.. Hypotonic(hoursAgo: 20), Some.Sodium(140, hoursAgo: 50)]));
+        Assert.Contains("**chronic or of unknown duration**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("before this assessment", card.Detail, StringComparison.Ordinal);
     }
 
     [Theory]

@@ -33,11 +33,11 @@ internal static class WorkupTestData
         => Assert.Single(Some.Engine(options, Knowledge).Decide(Some.Request(facts)));
 
     /// <summary>A complete hypotonic work-up: sodium 126, measured osmolality 262, glucose 5.4, urea 3.6 (all 2 h ago).</summary>
-    public static List<LabResult> Hypotonic(double sodium = 126) =>
+    public static List<LabResult> Hypotonic(double sodium = 126, double hoursAgo = 2) =>
     [
-        Some.Sodium(sodium),
-        Lab(Analyte.SerumOsmolality, 262),
-        Lab(Analyte.Glucose, 5.4),
-        Lab(Analyte.Urea, 3.6),
+        Some.Sodium(sodium, hoursAgo),
+        Some.Lab(Analyte.SerumOsmolality, 262, hoursAgo),
+        Some.Lab(Analyte.Glucose, 5.4, hoursAgo),
+        Some.Lab(Analyte.Urea, 3.6, hoursAgo),
     ];
 }

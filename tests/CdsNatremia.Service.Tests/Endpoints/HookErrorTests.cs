@@ -81,6 +81,19 @@ public class HookErrorTests(NatremiaFactory factory) : IClassFixture<NatremiaFac
         Assert.Contains("'fhirServer' is required", await response.Content.ReadAsStringAsync(), StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData("hookInstance")]
+    [InlineData("hook")]
+    public async Task LoneSurrogateEscapeInAString_400NotA500(string field)
+    {
+        // "\ud800" is valid JSON syntax but decodes to no valid text; found by fuzzing (it used to surface as a 500).
+        var text = Valid().ToJsonString();
+        text = text.Replace($"\"{field}\":\"", $"\"{field}\":\"\\ud800", StringComparison.Ordinal);
+        var response = await HookCalls.PostRawAsync(factory.CreateClient(), Service, text);
+        Assert.Equal(HttpStatusCode.BadRequest, response.StatusCode);
+        Assert.Contains("lone UTF-16 surrogate", await response.Content.ReadAsStringAsync(), StringComparison.Ordinal);
+    }
+
     [Fact]
     public async Task UnknownService_404()
         => Assert.Equal(HttpStatusCode.NotFound, (await HookCalls.PostAsync(factory.CreateClient(), "no-such-service", Valid())).StatusCode);
@@ -126,6 +139,12 @@ public class HookErrorTests(NatremiaFactory factory) : IClassFixture<NatremiaFac
     [InlineData("{\"resourceType\":\"Bundle\",\"entry\":[{\"resource\":{\"resourceType\":\"Observation\",\"status\":\"final\",\"valueQuantity\":{\"value\":\"abc\"}}}]}")]
     [InlineData("{\"resourceType\":\"Bundle\",\"entry\":\"oops\"}")]
     [InlineData("{\"resourceType\":\"NoSuchType\"}")]
+    // a null inside code.coding (found by fuzzing)
+    [InlineData("{\"resourceType\":\"Bundle\",\"entry\":[{\"resource\":{\"resourceType\":\"Observation\",\"id\":\"n1\",\"status\":\"final\",\"code\":{\"coding\":[null,{\"system\":\"http://loinc.org\",\"code\":\"2951-2\"}]},\"subject\":{\"reference\":\"Patient/s01-pt\"},\"effectiveDateTime\":\"2026-03-10T07:40:00Z\",\"valueQuantity\":{\"value\":124,\"unit\":\"mmol/L\"}}}]}")]
+    // an id of the wrong JSON type (found by fuzzing)
+    [InlineData("{\"resourceType\":\"Bundle\",\"entry\":[{\"resource\":{\"resourceType\":\"Observation\",\"id\":[],\"status\":\"final\",\"code\":{\"coding\":[{\"system\":\"http://loinc.org\",\"code\":\"2951-2\"}]},\"subject\":{\"reference\":\"Patient/s01-pt\"},\"effectiveDateTime\":\"2026-03-10T07:40:00Z\",\"valueQuantity\":{\"value\":124,\"unit\":\"mmol/L\"}}}]}")]
+    // a time finer than .NET ticks on the latest of two results (found by fuzzing)
+    [InlineData("{\"resourceType\":\"Bundle\",\"entry\":[{\"resource\":{\"resourceType\":\"Observation\",\"id\":\"t1\",\"status\":\"final\",\"code\":{\"coding\":[{\"system\":\"http://loinc.org\",\"code\":\"2951-2\"}]},\"subject\":{\"reference\":\"Patient/s01-pt\"},\"effectiveDateTime\":\"2026-03-09T07:40:00Z\",\"valueQuantity\":{\"value\":112,\"unit\":\"mmol/L\"}}},{\"resource\":{\"resourceType\":\"Observation\",\"id\":\"t2\",\"status\":\"final\",\"code\":{\"coding\":[{\"system\":\"http://loinc.org\",\"code\":\"2951-2\"}]},\"subject\":{\"reference\":\"Patient/s01-pt\"},\"effectiveDateTime\":\"2026-03-10T07:40:00.000000001Z\",\"valueQuantity\":{\"value\":124,\"unit\":\"mmol/L\"}}}]}")]
     public async Task WrongShapesInPrefetch_NeverA500(string sodiumJson)
     {
         var body = Valid();
