@@ -94,7 +94,7 @@ public sealed class DrugCauseRule : IAssessmentRule
         var first = Invariant.Format($"{Invariant.Number(fall.FirstLow.Value)} mmol/L at {Invariant.Time(fall.FirstLow.EffectiveAt)} ({Markdown.Escape(fall.FirstLow.Reference)})");
         return fall.Before is { } before
             ? Invariant.Format(
-                $"**The fall in sodium**: {Invariant.Number(before.Value)} mmol/L at {Invariant.Time(before.EffectiveAt)} ({Markdown.Escape(before.Reference)}) before the fall; {first} is the first result at about the current level. A medicine started before that first low result is a likely contributor; one started on or after it, unlikely.")
+                $"**The fall in sodium**: {Invariant.Number(before.Value)} mmol/L at {Invariant.Time(before.EffectiveAt)} ({Markdown.Escape(before.Reference)}) before the fall; {first} is the first result near the lowest level of this low stretch. A medicine started before that first low result is a likely contributor; one started on or after it, unlikely.")
             : Invariant.Format(
                 $"**The fall in sodium**: no earlier higher sodium is on record; the first low result is {first}, so when the fall began is unknown.");
     }

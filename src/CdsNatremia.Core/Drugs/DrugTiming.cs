@@ -40,7 +40,7 @@ public static class DrugTiming
         if (start >= fall.FirstLow.EffectiveAt)
         {
             return new TimingEvidence(TimingVerdict.Unlikely, Invariant.Format(
-                $"{started}, on or after {Value(fall.FirstLow)}, when sodium was already about this low: unlikely to have started the fall, though it can keep sodium low"));
+                $"{started}, on or after {Value(fall.FirstLow)}, when sodium was already near its lowest: unlikely to have started the fall, though it can keep sodium low"));
         }
 
         if (fall.Before is not { } before)

@@ -66,4 +66,15 @@ public class SodiumFallTests
         Assert.Null(fall.Before);
         Assert.Equal(124, fall.FirstLow.Value);
     }
+
+    [Fact]
+    public void Find_RecoveringSodium_FallMeasuredToTheNadirNotTheLatest()
+    {
+        // Found in review: 134, then 119, then 131 while recovering. The fall ran from 134 to 119 (a drop of 15 ≥ the
+        // meaningful 4 mmol/L); measured against the latest 131 it would have looked like no fall at all.
+        var fall = SodiumFall.Find(Series(134, 119, 131), NormalFrom, Drop)!;
+        Assert.Equal(134, fall.Before!.Value);
+        Assert.Equal(119, fall.FirstLow.Value);
+        Assert.Equal(131, fall.Latest.Value);
+    }
 }
