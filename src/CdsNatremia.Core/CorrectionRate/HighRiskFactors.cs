@@ -38,7 +38,13 @@ public static class HighRiskFactors
                 nadir.Reference));
         }
 
-        if (facts.Latest(Analyte.Potassium) is { } potassium)
+        // Potassium during the episode (from a day before the nadir onwards; the newest result when there is no nadir):
+        // a low value at the nadir counts even if it has since been replaced, and a years-old low value does not.
+        var since = nadir?.EffectiveAt.AddHours(-24);
+        var potassiumResults = since is { } from
+            ? facts.Results(Analyte.Potassium).Where(k => k.EffectiveAt >= from)
+            : facts.Results(Analyte.Potassium).Take(1);
+        foreach (var potassium in potassiumResults)
         {
             var (below, basis) = potassium.ReferenceLow is { } low
                 ? (low, "the laboratory's lower reference limit")
@@ -49,6 +55,7 @@ public static class HighRiskFactors
                     "potassium",
                     Invariant.Format($"low potassium: {Invariant.Number(potassium.Value)} mmol/L at {Invariant.Time(potassium.EffectiveAt)} ({Markdown.Escape(potassium.Reference)}), below {basis} of {Invariant.Number(below)} mmol/L"),
                     potassium.Reference));
+                break;
             }
         }
 

@@ -69,7 +69,7 @@ internal static class RateText
     public static string HighRisk(IReadOnlyList<HighRiskFactor> factors, CorrectionLimits limits)
         => factors.Count == 0
             ? Invariant.Format($"No factor of high risk of osmotic demyelination was found in the data received (checked: nadir ≤ 105 mmol/L, low potassium, alcohol use disorder, malnutrition, advanced liver disease); the usual limits apply.")
-            : Invariant.Format($"**High risk of osmotic demyelination**, so the stricter limits apply ({Mmol(limits.HighRiskDay)} in any 24 h, {Mmol(limits.HighRiskTwoDays)} in 48 h): ") + string.Join("; ", factors.Select(f => f.Description)) + ".";
+            : Invariant.Format($"**High risk of osmotic demyelination**, so the stricter limits apply ({Mmol(limits.HighRiskDay)} in any 24 h; {Mmol(limits.HighRiskTwoDays)} in 48 h, derived from the 24-h limit): ") + string.Join("; ", factors.Select(f => f.Description)) + ".";
 
     public static IReadOnlyList<string> Sources(CorrectionLimits limits) =>
     [
