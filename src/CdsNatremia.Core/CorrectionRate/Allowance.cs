@@ -31,7 +31,7 @@ public sealed record Allowance(CorrectionEpisode Episode, RateWindow Day, RateWi
         }
 
         var limits = options.Resolve();
-        var factors = HighRiskFactors.Find(context.Request.Facts, episode.Nadir, context.Knowledge, options);
+        var factors = HighRiskFactors.Find(context.Request.Facts, HighRiskFactors.LowestOfLowStretch(context.Sodium, episode.Nadir, context.Thresholds.NormalFrom), context.Knowledge, options);
         var now = context.Request.Now;
         var at = episode.Latest.EffectiveAt > now ? episode.Latest.EffectiveAt : now;
         return new Allowance(

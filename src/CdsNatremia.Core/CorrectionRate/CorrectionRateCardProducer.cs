@@ -44,7 +44,7 @@ public sealed class CorrectionRateCardProducer : ICardProducer
         }
 
         var limits = options.Resolve();
-        var factors = HighRiskFactors.Find(request.Facts, episode.Nadir, context.Knowledge, options);
+        var factors = HighRiskFactors.Find(request.Facts, HighRiskFactors.LowestOfLowStretch(context.Sodium, episode.Nadir, context.Thresholds.NormalFrom), context.Knowledge, options);
         var highRisk = factors.Count > 0;
         var day = RateWindows.Measure(episode, episode.Latest.EffectiveAt, 24, limits, highRisk, request.Now, options);
         var twoDays = RateWindows.Measure(episode, episode.Latest.EffectiveAt, 48, limits, highRisk, request.Now, options);

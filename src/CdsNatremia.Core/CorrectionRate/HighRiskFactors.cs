@@ -19,6 +19,38 @@ public static class HighRiskFactors
         ("condition-cirrhosis", "liver", "advanced liver disease"),
     ];
 
+    /// <summary>
+    /// The lowest sodium of the whole low stretch the episode belongs to (every result since the last normal one, back
+    /// beyond the episode's look-back): "sodium ≤ 105 mmol/L" makes the patient high risk for the whole correction,
+    /// even once that value is older than the episode window. Falls back to the episode nadir.
+    /// </summary>
+    public static LabResult LowestOfLowStretch(CdsNatremia.Core.Sodium.SodiumSeries series, LabResult episodeNadir, double normalFrom)
+    {
+        Guard.NotNull(series, nameof(series));
+        Guard.NotNull(episodeNadir, nameof(episodeNadir));
+        var lowest = episodeNadir;
+        for (var i = series.Results.Count - 1; i >= 0; i--)
+        {
+            var result = series.Results[i];
+            if (result.EffectiveAt > episodeNadir.EffectiveAt)
+            {
+                continue;
+            }
+
+            if (result.Value >= normalFrom)
+            {
+                break;
+            }
+
+            if (result.Value < lowest.Value)
+            {
+                lowest = result;
+            }
+        }
+
+        return lowest;
+    }
+
     /// <summary>Every factor found; empty when none.</summary>
     /// <param name="facts">The patient's facts.</param>
     /// <param name="nadir">The lowest sodium of the current episode, or null.</param>

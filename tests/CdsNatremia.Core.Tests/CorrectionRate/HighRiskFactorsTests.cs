@@ -26,4 +26,24 @@ public class HighRiskFactorsTests
         var factors = HighRiskFactors.Find(facts, nadir, KnowledgeBase.Empty, new CorrectionRateOptions());
         Assert.DoesNotContain(factors, f => f.Description.Contains("potassium", StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void LowestOfLowStretch_NadirOlderThanTheEpisodeWindow_StillFound()
+    {
+        // Found in review: 104 at 0 h, 110 at 24 h, 116 at 48 h, 120 at 73 h. The 72-h episode sees 110 as its nadir, but
+        // sodium ≤ 105 mmol/L (US expert panel, reference sheet) makes the whole correction high risk.
+        var facts = Some.Facts(Some.Sodium(104, 73, id: "na-104"), Some.Sodium(110, 49), Some.Sodium(116, 25), Some.Sodium(120, 0));
+        var series = CdsNatremia.Core.Sodium.SodiumSeries.From(facts, Some.Now, new CdsNatremia.Core.Sodium.SodiumReadingOptions());
+        var lowest = HighRiskFactors.LowestOfLowStretch(series, series.Results[1], 135);
+        Assert.Equal("na-104", lowest.ResourceId);
+        Assert.Contains(HighRiskFactors.Find(facts, lowest, KnowledgeBase.Empty, new CorrectionRateOptions()), f => f.Kind == "nadir");
+    }
+
+    [Fact]
+    public void LowestOfLowStretch_StopsAtTheLastNormalValue()
+    {
+        var facts = Some.Facts(Some.Sodium(100, 200), Some.Sodium(138, 150), Some.Sodium(110, 49), Some.Sodium(120, 0));
+        var series = CdsNatremia.Core.Sodium.SodiumSeries.From(facts, Some.Now, new CdsNatremia.Core.Sodium.SodiumReadingOptions());
+        Assert.Equal(110, HighRiskFactors.LowestOfLowStretch(series, series.Results[2], 135).Value);
+    }
 }
