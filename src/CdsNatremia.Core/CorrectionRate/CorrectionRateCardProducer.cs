@@ -68,8 +68,11 @@ public sealed class CorrectionRateCardProducer : ICardProducer
     {
         var options = context.Options.CorrectionRate;
         var past = worst.Status == RateStatus.AtOrPast;
-        var summary = Summary.Fit(Invariant.Format(
-            $"Sodium rose {RateText.Mmol(worst.Rise)} in {RateText.Hours(worst.ElapsedHours)} h ({Invariant.Number(worst.Baseline.Value)} → {Invariant.Number(worst.Latest.Value)}): {(past ? "at or past" : "approaching")} the {Invariant.Number(worst.Limit)} mmol/L limit ({worst.LimitLabel})."));
+        var summary = worst.PassedAt is { } peak
+            ? Summary.Fit(Invariant.Format(
+                $"Sodium reached {Invariant.Number(peak.Value)} from {Invariant.Number(worst.Baseline.Value)} ({RateText.Mmol(peak.Value - worst.Baseline.Value)}): the {Invariant.Number(worst.Limit)} mmol/L limit was passed; now {Invariant.Number(worst.Latest.Value)}."))
+            : Summary.Fit(Invariant.Format(
+                $"Sodium rose {RateText.Mmol(worst.Rise)} in {RateText.Hours(worst.ElapsedHours)} h ({Invariant.Number(worst.Baseline.Value)} → {Invariant.Number(worst.Latest.Value)}): {(past ? "at or past" : "approaching")} the {Invariant.Number(worst.Limit)} mmol/L limit ({worst.LimitLabel})."));
 
         var findings = new List<string>
         {
@@ -78,6 +81,12 @@ public sealed class CorrectionRateCardProducer : ICardProducer
             Invariant.Format($"Rise since the nadir: {RateText.Mmol(episode.RiseSinceNadir)} in {RateText.Hours(episode.HoursSinceNadir)} h."),
             Invariant.Format($"Limit reached or approached: {RateText.Mmol(worst.Limit)} ({worst.LimitLabel}, {Markdown.Escape(limits.Name)}); rise in that window {RateText.Mmol(worst.Rise)}; {RateText.Status(worst.Status)}."),
         };
+        if (worst.PassedAt is { } passed)
+        {
+            findings.Add(Invariant.Format(
+                $"**The limit was passed**: {Cite.Result(passed)} is {RateText.Mmol(passed.Value - worst.Baseline.Value)} above {Invariant.Number(worst.Baseline.Value)} mmol/L ({Markdown.Escape(worst.Baseline.Reference)}); sodium has come down since."));
+        }
+
         if (worst.HoursLeft is { } left)
         {
             findings.Add(left > 0

@@ -33,6 +33,12 @@ public sealed record RateWindow(
     double? ProjectedRise,
     RateStatus Status)
 {
+    /// <summary>
+    /// A result inside the window whose rise from the baseline reached the limit although the latest result is lower
+    /// (an overshoot since re-lowered, or a falling-back value): the limit was passed even if the latest rise is within it.
+    /// </summary>
+    public LabResult? PassedAt { get; init; }
+
     /// <summary>Hours between the baseline and the latest result.</summary>
     public double ElapsedHours => (Latest.EffectiveAt - Baseline.EffectiveAt).TotalHours;
 

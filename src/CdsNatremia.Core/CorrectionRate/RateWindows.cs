@@ -85,6 +85,23 @@ public static class RateWindows
             : projected >= limit && elapsed >= options.ProjectAfterHours ? RateStatus.Approaching
             : RateStatus.Within;
 
-        return new RateWindow(lengthHours, anchored, start, end, baseline, latest, rise, limit, label, hoursLeft, projected, status);
+        // A peak inside the window that reached the limit counts even when sodium has come down since (overshoot, then
+        // re-lowering): the limit was passed, and the card must say so rather than report only the latest rise.
+        LabResult? passedAt = null;
+        if (status != RateStatus.AtOrPast)
+        {
+            var peak = inRange
+                .Where(r => r.EffectiveAt > baseline.EffectiveAt && r.EffectiveAt >= start)
+                .OrderByDescending(r => r.Value)
+                .ThenBy(r => r.EffectiveAt)
+                .FirstOrDefault();
+            if (peak is not null && Math.Round(peak.Value - baseline.Value, 1, MidpointRounding.AwayFromZero) >= limit)
+            {
+                passedAt = peak;
+                status = RateStatus.AtOrPast;
+            }
+        }
+
+        return new RateWindow(lengthHours, anchored, start, end, baseline, latest, rise, limit, label, hoursLeft, projected, status) { PassedAt = passedAt };
     }
 }

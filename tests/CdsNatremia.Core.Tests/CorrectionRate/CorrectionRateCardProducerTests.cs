@@ -69,6 +69,18 @@ public class CorrectionRateCardProducerTests
     }
 
     [Fact]
+    public void Produce_OvershootThenRelowered_CriticalSayingTheLimitWasPassed()
+    {
+        // 2014 European guideline (reference sheet): ≤ 10 mmol/L in the first 24 h. 110 → 122 at 12 h passed it, even
+        // though sodium was re-lowered to 118 at 20 h (found in review: the card used to say "approaching").
+        var cards = RateCards(Some.Facts(Some.Sodium(110, 21, id: "na-nadir"), Some.Sodium(122, 9, id: "na-peak"), Some.Sodium(118, 1)));
+        var card = Assert.Single(cards);
+        Assert.Equal(CdsNatremia.Core.Cards.CardIndicator.Critical, card.Indicator);
+        Assert.Contains("limit was passed", card.Summary, StringComparison.Ordinal);
+        Assert.Contains("Observation/na-peak", card.Detail, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Produce_SlowSafeRise_NoCard()
         => Assert.Empty(RateCards(Some.Facts(Some.Sodium(126, 21), Some.Sodium(130, 1))));
 
