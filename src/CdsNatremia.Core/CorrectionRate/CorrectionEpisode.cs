@@ -63,7 +63,9 @@ public sealed class CorrectionEpisode
 
         // The most recent occurrence of the lowest value: correction is counted from the last time sodium was that low.
         var nadir = recent.Where(r => r.Value == lowest).OrderBy(r => r.EffectiveAt).ThenBy(r => r.ResourceId, StringComparer.Ordinal).Last();
-        var results = series.Results.Where(r => r.EffectiveAt >= nadir.EffectiveAt).ToList();
+        // Compared to the minute, like the latest result: a lower value a few seconds after the chosen latest one (a blood
+        // gas beside a laboratory value) is simultaneous with it, so the latest result always belongs to the episode.
+        var results = series.Results.Where(r => Minute(r.EffectiveAt) >= Minute(nadir.EffectiveAt)).ToList();
         return new CorrectionEpisode(nadir, latest, results, atLatest.Where(r => !ReferenceEquals(r, latest)).ToList(), options.EpisodeLookbackHours);
     }
 

@@ -46,8 +46,8 @@ public static class RateWindows
             end = start.AddHours(24);
         }
 
-        var inRange = episode.Results.Where(r => r.EffectiveAt <= at).ToList();
-        var latest = inRange.Count == 0 || inRange.Contains(episode.Latest) ? episode.Latest : inRange[^1];
+        var inRange = episode.Results.Where(r => CorrectionEpisode.Minute(r.EffectiveAt) <= CorrectionEpisode.Minute(at)).ToList();
+        var latest = inRange.Contains(episode.Latest) ? episode.Latest : inRange[^1];
         LabResult baseline;
         if (anchored)
         {

@@ -81,6 +81,16 @@ public class CorrectionRateCardProducerTests
     }
 
     [Fact]
+    public void Produce_LowerValueSecondsAfterTheLatestInTheSameMinute_NoFailure()
+    {
+        // Same-minute results are simultaneous (the highest is taken as the latest). A lower one 20 s later used to become
+        // the nadir after the latest result and leave the rate window empty (a 500, found by fuzzing).
+        var facts = Some.Facts(Some.Sodium(112, 21), Some.Sodium(120, 1), Some.Sodium(110, 1 - (20.0 / 3600)));
+        var cards = RateCards(facts);
+        Assert.All(cards, c => Assert.Contains("Advisory only", c.Detail, StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void Produce_SlowSafeRise_NoCard()
         => Assert.Empty(RateCards(Some.Facts(Some.Sodium(126, 21), Some.Sodium(130, 1))));
 

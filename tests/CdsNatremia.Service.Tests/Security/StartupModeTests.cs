@@ -19,7 +19,7 @@ public sealed class StartupModeTests
     {
         using var factory = NatremiaFactory.With(new() { [PseudonymKeySetting] = PseudonymKey });
         using var production = factory.WithWebHostBuilder(b => b.UseEnvironment("Production"));
-        var message = AllMessages(Assert.ThrowsAny<Exception>(() => production.CreateClient()));
+        var message = Exceptions.AllMessages(Assert.ThrowsAny<Exception>(() => production.CreateClient()));
         Assert.Contains("TrustedClients is empty", message, StringComparison.Ordinal);
         Assert.Contains("only in the Development environment, not in 'Production'", message, StringComparison.Ordinal);
     }
@@ -29,7 +29,7 @@ public sealed class StartupModeTests
     {
         using var factory = NatremiaFactory.With(new() { [PseudonymKeySetting] = PseudonymKey });
         using var staging = factory.WithWebHostBuilder(b => b.UseEnvironment("Staging"));
-        Assert.Contains("TrustedClients is empty", AllMessages(Assert.ThrowsAny<Exception>(() => staging.CreateClient())), StringComparison.Ordinal);
+        Assert.Contains("TrustedClients is empty", Exceptions.AllMessages(Assert.ThrowsAny<Exception>(() => staging.CreateClient())), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -58,7 +58,7 @@ public sealed class StartupModeTests
         settings["Natremia:Authentication:Algorithms:0"] = "ES384";
         settings["Natremia:Authentication:Algorithms:1"] = algorithm;
         using var factory = NatremiaFactory.With(settings);
-        var message = AllMessages(Assert.ThrowsAny<Exception>(() => factory.CreateClient()));
+        var message = Exceptions.AllMessages(Assert.ThrowsAny<Exception>(() => factory.CreateClient()));
         Assert.Contains($"'{algorithm}' is not allowed", message, StringComparison.Ordinal);
     }
 
@@ -71,7 +71,7 @@ public sealed class StartupModeTests
         jwks["keys"]![0]!["d"] = "c2VjcmV0LXBhcnQ"; // a private member where only public keys belong
         settings["Natremia:Authentication:TrustedClients:0:Jwks"] = jwks.ToJsonString();
         using var factory = NatremiaFactory.With(settings);
-        Assert.Contains("holds private key material", AllMessages(Assert.ThrowsAny<Exception>(() => factory.CreateClient())), StringComparison.Ordinal);
+        Assert.Contains("holds private key material", Exceptions.AllMessages(Assert.ThrowsAny<Exception>(() => factory.CreateClient())), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -81,7 +81,7 @@ public sealed class StartupModeTests
         var settings = keys.InlineSettings();
         settings.Remove("Natremia:Authentication:PublicBaseUrl");
         using var factory = NatremiaFactory.With(settings);
-        Assert.Contains("PublicBaseUrl must be an absolute URL", AllMessages(Assert.ThrowsAny<Exception>(() => factory.CreateClient())), StringComparison.Ordinal);
+        Assert.Contains("PublicBaseUrl must be an absolute URL", Exceptions.AllMessages(Assert.ThrowsAny<Exception>(() => factory.CreateClient())), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -129,20 +129,5 @@ public sealed class StartupModeTests
         var body = await (await factory.CreateClient().SendAsync(request)).Content.ReadAsStringAsync();
         Assert.Contains("\"services\"", body, StringComparison.Ordinal);
         Assert.DoesNotContain("authentication is OFF", body, StringComparison.Ordinal);
-    }
-
-    private static string AllMessages(Exception exception)
-    {
-        var messages = new List<string>();
-        for (Exception? e = exception; e is not null; e = e.InnerException)
-        {
-            messages.Add(e.Message);
-            if (e is AggregateException aggregate)
-            {
-                messages.AddRange(aggregate.InnerExceptions.Select(AllMessages));
-            }
-        }
-
-        return string.Join(" | ", messages);
     }
 }
