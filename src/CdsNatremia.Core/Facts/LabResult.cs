@@ -1,8 +1,10 @@
 namespace CdsNatremia.Core.Facts;
 
 /// <summary>
-/// One usable laboratory result, already converted to the analyte's canonical unit.
+/// One usable or bounded laboratory result, already converted to the analyte's canonical unit.
 /// Only results the FHIR layer accepted become a <see cref="LabResult"/>; the rest are <see cref="SetAsideItem"/>s.
+/// A bounded result (<see cref="Comparator"/> set) is kept apart in <see cref="PatientFacts.BoundedLabs"/>, never in
+/// <see cref="PatientFacts.Labs"/>, so no rule computes with a bound as if it were a measurement.
 /// Immutable; equality is by value.
 /// </summary>
 /// <param name="ResourceId">The Observation's logical id, e.g. "na-3".</param>
@@ -31,6 +33,18 @@ public sealed record LabResult(
     string? OriginalUnit = null,
     DataOrigin Origin = DataOrigin.Prefetch)
 {
+    /// <summary>
+    /// Set when the value is a bound, not a measurement (FHIR Quantity.comparator): <see cref="Value"/> is then the bound.
+    /// Null for a measurement.
+    /// </summary>
+    public ValueComparator? Comparator { get; init; }
+
+    /// <summary>True when the value is a bound.</summary>
+    public bool IsBounded => Comparator is not null;
+
+    /// <summary>Identifiers of the Observation ("system|value"), used to find a correction of the same result.</summary>
+    public IReadOnlyList<string> Identifiers { get; init; } = [];
+
     /// <summary>The canonical unit of <see cref="Value"/>.</summary>
     public string Unit => AnalyteUnits.CanonicalUnit(Analyte);
 

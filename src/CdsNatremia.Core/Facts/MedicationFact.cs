@@ -33,6 +33,21 @@ public sealed record MedicationFact(
     /// <summary>Free-text dosage instruction as sent.</summary>
     public string? DosageText { get; init; }
 
+    /// <summary>
+    /// Why the product could not be read (its Medication could not be resolved, no code and no text), or null when it
+    /// could. A rule must not read an unreadable medicine as "not this drug": it makes a drug criterion unknown.
+    /// </summary>
+    public string? ProductUnreadable { get; init; }
+
+    /// <summary>For a stopped or completed record: when use ended (effectivePeriod.end), when recorded.</summary>
+    public DateTimeOffset? EndedAt { get; init; }
+
+    /// <summary>
+    /// For a stopped or completed record without an end: the latest time it is known to have been recorded
+    /// (dateAsserted, effectiveDateTime, authoredOn); use ended at or before it.
+    /// </summary>
+    public DateTimeOffset? LastRecordedAt { get; init; }
+
     /// <summary>"{ResourceType}/{id}", the relative reference a delete action names.</summary>
     public string Reference => ResourceType + "/" + ResourceId;
 }

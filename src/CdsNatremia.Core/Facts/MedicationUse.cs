@@ -9,4 +9,9 @@ public enum MedicationUse
     Intended,
     /// <summary>A draft order from the hook context (order-select, order-sign): not yet signed.</summary>
     Draft,
+    /// <summary>
+    /// Stopped or completed (MedicationStatement stopped/completed, MedicationRequest stopped/completed). Kept apart in
+    /// <see cref="PatientFacts.StoppedMedications"/>; the rules count one only when it stopped within their look-back.
+    /// </summary>
+    Stopped,
 }

@@ -12,6 +12,7 @@ public sealed record SiadhCriterion(string Name, CriterionStatus Status, string 
         CriterionStatus.Met => "met",
         CriterionStatus.NotMet => "not met",
         CriterionStatus.Unknown => "unknown",
+        CriterionStatus.CouldNotBeRead => "unknown (could not be read)",
         _ => "for the clinician to assess",
     };
 }

@@ -52,6 +52,7 @@ public sealed class BundleReader
     {
         var resources = new List<ParsedResource>();
         var problems = new List<string>();
+        var unreadable = new List<UnreadableObservation>();
         if (bundle.TryGetProperty("entry", out var entries))
         {
             if (entries.ValueKind != JsonValueKind.Array)
@@ -62,16 +63,23 @@ public sealed class BundleReader
             var index = 0;
             foreach (var entry in entries.EnumerateArray())
             {
-                ReadEntry(source, entry, index++, origin, resources, problems);
+                ReadEntry(source, entry, index++, origin, resources, problems, unreadable);
             }
         }
 
         var next = NextLink(bundle);
-        var kind = resources.Count > 0 ? PrefetchValueKind.Data : PrefetchValueKind.Empty;
-        return new PrefetchValue(key, kind, resources, problems, next);
+        var kind = resources.Count > 0 || unreadable.Count > 0 ? PrefetchValueKind.Data : PrefetchValueKind.Empty;
+        return new PrefetchValue(key, kind, resources, problems, next) { UnreadableObservations = unreadable };
     }
 
-    private void ReadEntry(string source, JsonElement entry, int index, DataOrigin origin, List<ParsedResource> resources, List<string> problems)
+    private void ReadEntry(
+        string source,
+        JsonElement entry,
+        int index,
+        DataOrigin origin,
+        List<ParsedResource> resources,
+        List<string> problems,
+        List<UnreadableObservation> unreadable)
     {
         if (entry.ValueKind != JsonValueKind.Object || !entry.TryGetProperty("resource", out var raw) || raw.ValueKind != JsonValueKind.Object)
         {
@@ -85,6 +93,14 @@ public sealed class BundleReader
         {
             var type = raw.TryGetProperty("resourceType", out var rt) && rt.ValueKind == JsonValueKind.String ? rt.GetString() : "resource";
             var id = raw.TryGetProperty("id", out var rid) && rid.ValueKind == JsonValueKind.String ? $"{type}/{rid.GetString()}" : $"entry {index}";
+            if (type == "Observation")
+            {
+                // Kept as a set-aside result (not only a note) so the rules know a result of that analyte and time exists
+                // and could not be read: "the newest sodium could not be read" must never become silence.
+                unreadable.Add(UnreadableObservation.From(raw, id, $"it could not be read as FHIR R4 ({problem})"));
+                return;
+            }
+
             problems.Add($"{source}: {id} could not be read as FHIR R4 ({problem}); not used");
             return;
         }

@@ -7,7 +7,9 @@ namespace CdsNatremia.Fhir.Reading;
 /// <summary>
 /// Builds <see cref="PatientFacts"/> from everything a request carried: prefetch values (and fetched ones), the new
 /// results of the result hook, and the draft orders of the order hooks. A resource that arrives twice (same type and
-/// id) is read once, context first. Stateless apart from options; thread-safe.
+/// id) is read once, context first. Every item gets a fact state: usable; bounded (kept apart); superseded by a
+/// correction of the same result (<see cref="ResultSupersession"/>); unreadable (set aside with the reason); another
+/// patient's (counted only, nothing identifying kept); or absent. Stateless apart from options; thread-safe.
 /// </summary>
 public sealed class FactsAssembler
 {
@@ -21,7 +23,13 @@ public sealed class FactsAssembler
     /// <param name="now">Assessment time, for future-dated results.</param>
     /// <param name="values">Prefetch (or fetched) values, one per key.</param>
     /// <param name="contextResources">Resources from the hook context (new results, draft orders).</param>
-    public AssembledFacts Assemble(string patientId, DateTimeOffset now, IEnumerable<PrefetchValue> values, IEnumerable<ParsedResource> contextResources)
+    /// <param name="contextUnreadable">Observation entries of the hook context that did not parse.</param>
+    public AssembledFacts Assemble(
+        string patientId,
+        DateTimeOffset now,
+        IEnumerable<PrefetchValue> values,
+        IEnumerable<ParsedResource> contextResources,
+        IEnumerable<UnreadableObservation>? contextUnreadable = null)
     {
         ArgumentNullException.ThrowIfNull(values);
         ArgumentNullException.ThrowIfNull(contextResources);
@@ -44,10 +52,11 @@ public sealed class FactsAssembler
         var medicationReader = new MedicationReader(reference => medications.GetValueOrDefault(reference)
             ?? (References.IdOf(reference, "Medication") is { } id ? medications.GetValueOrDefault("Medication/" + id) : null));
 
-        var labs = new List<LabResult>();
+        var labs = new List<(Observation Observation, LabResult Result)>();
         var setAside = new List<SetAsideItem>();
         var conditions = new List<ConditionFact>();
         var meds = new List<MedicationFact>();
+        var stopped = new List<MedicationFact>();
         var drafts = new List<MedicationFact>();
         var sex = PatientSex.Unknown;
         DateOnly? birthDate = null;
@@ -75,7 +84,7 @@ public sealed class FactsAssembler
                 case Observation observation when _observations.TryRead(observation, patientId, now, item.Origin, out var result, out var aside):
                     if (result is not null)
                     {
-                        labs.Add(result);
+                        labs.Add((observation, result));
                     }
 
                     if (aside is not null)
@@ -98,21 +107,38 @@ public sealed class FactsAssembler
                     }
                     else
                     {
-                        setAside.Add(new SetAsideItem($"Patient/{patient.Id}", "Patient resource", "it is not the patient in the hook context"));
+                        setAside.Add(SetAsideItem.AboutAnotherPatient("Patient"));
                     }
 
+                    break;
+                case Condition condition when IsAnotherPatients(condition.Subject, patientId):
+                    setAside.Add(SetAsideItem.AboutAnotherPatient("Condition"));
+                    break;
+                case MedicationStatement statement when IsAnotherPatients(statement.Subject, patientId):
+                    setAside.Add(SetAsideItem.AboutAnotherPatient("MedicationStatement"));
+                    break;
+                case MedicationRequest request when IsAnotherPatients(request.Subject, patientId):
+                    setAside.Add(SetAsideItem.AboutAnotherPatient("MedicationRequest"));
                     break;
                 case Condition condition when ConditionReader.Read(condition, patientId) is { } fact:
                     conditions.Add(fact);
                     break;
                 case MedicationStatement statement when medicationReader.Read(statement, patientId, item.Origin, setAside) is { } fact:
-                    meds.Add(fact);
+                    (fact.Use == MedicationUse.Stopped ? stopped : meds).Add(fact);
                     break;
                 case MedicationRequest request when medicationReader.Read(request, patientId, item.Origin, isDraftOrder, setAside) is { } fact:
-                    (isDraftOrder ? drafts : meds).Add(fact);
+                    (isDraftOrder ? drafts : fact.Use == MedicationUse.Stopped ? stopped : meds).Add(fact);
                     break;
             }
         }
+
+        foreach (var entry in (contextUnreadable ?? []).Concat(valueList.SelectMany(v => v.UnreadableObservations)))
+        {
+            setAside.Add(SetAsideOf(entry, patientId));
+        }
+
+        var (current, superseded) = ResultSupersession.Apply(labs);
+        setAside.AddRange(superseded);
 
         if (all.Any(r => r.Origin == DataOrigin.FhirServer))
         {
@@ -124,14 +150,32 @@ public sealed class FactsAssembler
             PatientId = patientId,
             Sex = sex,
             BirthDate = birthDate,
-            Labs = labs,
+            Labs = current.Where(l => !l.IsBounded).ToList(),
+            BoundedLabs = current.Where(l => l.IsBounded).ToList(),
             SetAside = setAside,
             Conditions = conditions,
             Medications = meds,
+            StoppedMedications = stopped,
             DataNotes = notes,
             Unavailable = unavailable,
         };
         return new AssembledFacts(facts, drafts);
+    }
+
+    /// <summary>True when the subject names a patient other than this one (a missing subject is left to each reader).</summary>
+    private static bool IsAnotherPatients(ResourceReference? subject, string patientId)
+        => subject?.Reference is { } reference && !References.IsPatient(reference, patientId);
+
+    private static SetAsideItem SetAsideOf(UnreadableObservation entry, string patientId)
+    {
+        Analyte? analyte = entry.LoincCode is { } code && LoincCatalog.TryGet(code, out var known) ? known.Analyte : null;
+        if (entry.SubjectReference is { } subject && !References.IsPatient(subject, patientId))
+        {
+            return SetAsideItem.AboutAnotherPatient("Observation", analyte);
+        }
+
+        var what = analyte is { } a ? AnalyteUnits.DisplayName(a) + " (unreadable entry)" : "Observation (unreadable entry)";
+        return new SetAsideItem(entry.Reference, what, entry.Reason, analyte, entry.At);
     }
 
     private static Dictionary<string, Medication> IndexMedications(IEnumerable<ParsedResource> resources)

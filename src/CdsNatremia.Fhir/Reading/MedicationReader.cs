@@ -5,9 +5,11 @@ using Hl7.Fhir.Model;
 namespace CdsNatremia.Fhir.Reading;
 
 /// <summary>
-/// Turns MedicationStatement and MedicationRequest into <see cref="MedicationFact"/>s. Kept: statements active or
-/// intended; requests active or on-hold (and draft, for the order hooks). A medicationReference is resolved to a
-/// Medication that is contained or in the received data; an unresolved one keeps its display text and is noted.
+/// Turns MedicationStatement and MedicationRequest into <see cref="MedicationFact"/>s. Kept: statements active, intended or
+/// on-hold; requests active or on-hold (and draft, for the order hooks); statements and requests stopped or completed, as
+/// <see cref="MedicationUse.Stopped"/> with their end time (the rules filter them by date: prefetch tokens cannot). A
+/// medicationReference is resolved to a Medication that is contained or in the received data; an unresolved one keeps its
+/// display text, is marked <see cref="MedicationFact.ProductUnreadable"/> and is noted.
 /// </summary>
 public sealed class MedicationReader
 {
@@ -31,6 +33,7 @@ public sealed class MedicationReader
             MedicationStatement.MedicationStatusCodes.Active => MedicationUse.Active,
             MedicationStatement.MedicationStatusCodes.Intended => MedicationUse.Intended,
             MedicationStatement.MedicationStatusCodes.OnHold => MedicationUse.Active,
+            MedicationStatement.MedicationStatusCodes.Stopped or MedicationStatement.MedicationStatusCodes.Completed => MedicationUse.Stopped,
             _ => null,
         };
         if (use is null)
@@ -41,7 +44,14 @@ public sealed class MedicationReader
         var (start, source) = FhirTime.From(statement.Effective) is { } effective
             ? (effective, statement.Effective is Period ? "effectivePeriod.start" : "effectiveDateTime")
             : FhirTime.From(statement.DateAssertedElement?.Value) is { } asserted ? (asserted, "dateAsserted") : ((DateTimeOffset?)null, (string?)null);
-        return Build("MedicationStatement", statement.Id, statement.Medication, statement.Contained, use.Value, start, source, origin, setAside);
+        var fact = Build("MedicationStatement", statement.Id, statement.Medication, statement.Contained, use.Value, start, source, origin, setAside);
+        return use == MedicationUse.Stopped
+            ? fact with
+            {
+                EndedAt = statement.Effective is Period period ? FhirTime.From(period.EndElement) : null,
+                LastRecordedAt = FhirTime.From(statement.DateAssertedElement?.Value) ?? (statement.Effective is FhirDateTime ? start : null),
+            }
+            : fact;
     }
 
     /// <summary>Reads a request; null when it is not an active, on-hold or (for drafts) draft order.</summary>
@@ -66,6 +76,7 @@ public sealed class MedicationReader
                 => isDraftOrder ? MedicationUse.Draft : MedicationUse.Active,
             MedicationRequest.MedicationrequestStatus.Draft => isDraftOrder ? MedicationUse.Draft : MedicationUse.Intended,
             null when isDraftOrder => MedicationUse.Draft,
+            MedicationRequest.MedicationrequestStatus.Stopped or MedicationRequest.MedicationrequestStatus.Completed when !isDraftOrder => MedicationUse.Stopped,
             _ => null,
         };
         if (use is null)
@@ -82,6 +93,8 @@ public sealed class MedicationReader
             VolumeMilliliters = Milliliters(dose) ?? Milliliters(request.DispenseRequest?.Quantity),
             Route = Codings.TextOf(dosage?.Route),
             DosageText = dosage?.Text,
+            EndedAt = use == MedicationUse.Stopped ? FhirTime.From(request.DispenseRequest?.ValidityPeriod?.EndElement) : null,
+            LastRecordedAt = use == MedicationUse.Stopped ? start : null,
         };
     }
 
@@ -99,17 +112,24 @@ public sealed class MedicationReader
         IReadOnlyList<CodeRef> productCodes = [];
         IReadOnlyList<MedicationIngredient> ingredients = [];
         string? text = null;
+        string? unreadable = null;
         switch (medication)
         {
             case CodeableConcept concept:
                 productCodes = Codings.Of(concept);
                 text = Codings.TextOf(concept);
+                if (productCodes.Count == 0 && string.IsNullOrWhiteSpace(text))
+                {
+                    unreadable = "the medicine has neither a code nor a text";
+                }
+
                 break;
             case ResourceReference reference:
                 var resolved = Resolve(reference.Reference, contained);
                 if (resolved is null)
                 {
                     text = reference.Display;
+                    unreadable = "its Medication resource was not in the data received, so its ingredients could not be read";
                     setAside.Add(new SetAsideItem(
                         $"{type}/{id}",
                         "medication " + (reference.Display ?? reference.Reference ?? "(no reference)"),
@@ -123,9 +143,12 @@ public sealed class MedicationReader
                 }
 
                 break;
+            default:
+                unreadable = "the medicine is not given (no medication[x])";
+                break;
         }
 
-        return new MedicationFact(type, id, productCodes, ingredients, text, use, start, startSource, origin);
+        return new MedicationFact(type, id, productCodes, ingredients, text, use, start, startSource, origin) { ProductUnreadable = unreadable };
     }
 
     private Medication? Resolve(string? reference, List<Resource>? contained)

@@ -9,7 +9,7 @@ namespace CdsNatremia.Fhir.Reading;
 /// Turns an Observation into a <see cref="LabResult"/>, or sets it aside with the reason. Rules, in order:
 /// a LOINC code the service reads (others are ignored, not listed); the subject is this patient; status
 /// final/amended/corrected (preliminary counted and labelled; cancelled, entered-in-error, registered and unknown never);
-/// a numeric valueQuantity without a comparator; a time (effective[x], else issued) not in the future;
+/// a numeric valueQuantity (with a comparator it becomes a bounded result, <see cref="LabResult.Comparator"/>); a time (effective[x], else issued) not in the future;
 /// a unit the analyte accepts, converted to the canonical unit; a plausible value.
 /// </summary>
 public sealed class ObservationReader
@@ -53,11 +53,16 @@ public sealed class ObservationReader
             return true;
         }
 
-        if (!References.IsPatient(observation.Subject?.Reference, patientId))
+        if (observation.Subject?.Reference is null)
         {
-            setAside = Aside(observation.Subject?.Reference is null
-                ? "no subject: it cannot be confirmed to belong to this patient"
-                : "its subject is not the patient in the hook context");
+            setAside = Aside("no subject: it cannot be confirmed to belong to this patient");
+            return true;
+        }
+
+        if (!References.IsPatient(observation.Subject.Reference, patientId))
+        {
+            // Another patient's data: counted only. Its id, value and time never reach the facts (privacy).
+            setAside = SetAsideItem.AboutAnotherPatient("Observation", entry.Analyte);
             return true;
         }
 
@@ -70,13 +75,13 @@ public sealed class ObservationReader
                 preliminary = true;
                 break;
             case ObservationStatus.Cancelled:
-                setAside = Aside("status cancelled: a cancelled result never counts");
+                setAside = Aside("status cancelled: a cancelled result never counts") with { State = FactState.Absent };
                 return true;
             case ObservationStatus.EnteredInError:
-                setAside = Aside("status entered-in-error: a result entered in error never counts");
+                setAside = Aside("status entered-in-error: a result entered in error never counts") with { State = FactState.Absent };
                 return true;
             case ObservationStatus.Registered:
-                setAside = Aside("status registered: no result yet");
+                setAside = Aside("status registered: no result yet") with { State = FactState.Absent };
                 return true;
             default:
                 setAside = Aside($"status {StatusText(observation)}: only final, amended, corrected or preliminary results are used");
@@ -85,19 +90,13 @@ public sealed class ObservationReader
 
         if (observation.DataAbsentReason is not null)
         {
-            setAside = Aside("the result is marked as absent (dataAbsentReason)");
+            setAside = Aside("the result is marked as absent (dataAbsentReason" + (Codings.TextOf(observation.DataAbsentReason) is { } why ? ": " + why : string.Empty) + ")");
             return true;
         }
 
         if (observation.Value is not Quantity quantity || quantity.Value is not { } rawValue)
         {
             setAside = Aside("no numeric quantity value");
-            return true;
-        }
-
-        if (quantity.Comparator is not null)
-        {
-            setAside = Aside("the value is a bound (it has a comparator such as '<'), not a measurement");
             return true;
         }
 
@@ -122,6 +121,20 @@ public sealed class ObservationReader
         }
 
         var range = observation.ReferenceRange?.FirstOrDefault();
+        var comparator = quantity.Comparator switch
+        {
+            Quantity.QuantityComparator.LessThan => ValueComparator.LessThan,
+            Quantity.QuantityComparator.LessOrEqual => ValueComparator.LessOrEqual,
+            Quantity.QuantityComparator.GreaterThan => ValueComparator.GreaterThan,
+            Quantity.QuantityComparator.GreaterOrEqual => ValueComparator.GreaterOrEqual,
+            _ => (ValueComparator?)null,
+        };
+        if (quantity.Comparator is not null && comparator is null)
+        {
+            setAside = Aside("the comparator is not one FHIR R4 defines for a quantity");
+            return true;
+        }
+
         result = new LabResult(
             observation.Id,
             entry.Analyte,
@@ -134,7 +147,11 @@ public sealed class ObservationReader
             UnitConversions.ConvertBound(entry.Analyte, code, (double?)range?.High?.Value, range?.High is null ? null : UnitOf(range.High)),
             value,
             unit,
-            origin);
+            origin)
+        {
+            Comparator = comparator,
+            Identifiers = observation.Identifier?.Where(i => !string.IsNullOrEmpty(i?.Value)).Select(i => (i.System ?? string.Empty) + "|" + i.Value).ToList() ?? [],
+        };
         return true;
     }
 
@@ -147,13 +164,23 @@ public sealed class ObservationReader
             ? quantity.Code
             : quantity.Unit;
 
+    /// <summary>The comparator as a reader writes it ("below "), never the enum's name.</summary>
+    private static string ComparatorText(Quantity.QuantityComparator? comparator) => comparator switch
+    {
+        Quantity.QuantityComparator.LessThan => "below ",
+        Quantity.QuantityComparator.LessOrEqual => "at or below ",
+        Quantity.QuantityComparator.GreaterThan => "above ",
+        Quantity.QuantityComparator.GreaterOrEqual => "at or above ",
+        _ => string.Empty,
+    };
+
     private static string ReferenceOf(Observation observation) => "Observation/" + (observation.Id ?? "(no id)");
 
     private static string StatusText(Observation observation) => observation.StatusElement?.JsonValue as string ?? "missing";
 
     private static string Describe(Observation observation) => observation.Value switch
     {
-        Quantity q when q.Value is { } v => $"{q.Comparator?.ToString() ?? string.Empty}{v.ToString(CultureInfo.InvariantCulture)} {UnitOf(q) ?? "(no unit)"}".Trim(),
+        Quantity q when q.Value is { } v => $"{ComparatorText(q.Comparator)}{v.ToString(CultureInfo.InvariantCulture)} {UnitOf(q) ?? "(no unit)"}".Trim(),
         FhirString s => $"'{s.Value}'",
         null => "(no value)",
         var other => $"({other.TypeName})",

@@ -11,4 +11,8 @@ public sealed record PrefetchValue(
     PrefetchValueKind Kind,
     IReadOnlyList<ParsedResource> Resources,
     IReadOnlyList<string> Problems,
-    string? NextLink = null);
+    string? NextLink = null)
+{
+    /// <summary>Observation entries that did not parse, with what their raw JSON still tells (code, time, subject).</summary>
+    public IReadOnlyList<UnreadableObservation> UnreadableObservations { get; init; } = [];
+}
