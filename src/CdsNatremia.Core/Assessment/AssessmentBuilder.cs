@@ -37,15 +37,29 @@ public sealed class AssessmentBuilder
     /// <summary>Separate cards a rule raises where something is urgent (e.g. a critical correction-rate card).</summary>
     public List<Card> ExtraCards { get; } = [];
 
-    /// <summary>The card's indicator so far.</summary>
-    public CardIndicator Indicator { get; private set; } = CardIndicator.Info;
+    private CardIndicator _raised = CardIndicator.Info;
+    private CardIndicator _ceiling = CardIndicator.Critical;
+
+    /// <summary>The card's indicator so far: the highest raised, but never above a ceiling a rule set.</summary>
+    public CardIndicator Indicator => _raised > _ceiling ? _ceiling : _raised;
 
     /// <summary>Raises the indicator; never lowers it.</summary>
     public void Raise(CardIndicator indicator)
     {
-        if (indicator > Indicator)
+        if (indicator > _raised)
         {
-            Indicator = indicator;
+            _raised = indicator;
+        }
+    }
+
+    /// <summary>
+    /// Sets a ceiling on the indicator (e.g. a stale result gives at most a warning: recheck first); the lowest ceiling wins.
+    /// </summary>
+    public void LimitTo(CardIndicator ceiling)
+    {
+        if (ceiling < _ceiling)
+        {
+            _ceiling = ceiling;
         }
     }
 

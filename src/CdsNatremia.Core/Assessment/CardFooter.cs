@@ -17,11 +17,18 @@ public static class CardFooter
     {
         Guard.NotNull(detail, nameof(detail));
         Guard.NotNull(facts, nameof(facts));
-        var setAside = facts.SetAside.Select(Cite.SetAside).ToList();
+        var setAside = facts.SetAside.Where(s => s.State != FactState.NotThisPatient).Select(Cite.SetAside).ToList();
         if (setAside.Count > MaxSetAsideShown)
         {
             var more = setAside.Count - MaxSetAsideShown;
             setAside = [.. setAside.Take(MaxSetAsideShown), Invariant.Format($"…and {more} more.")];
+        }
+
+        // Another patient's data: a count only, never values, ids or times (privacy), and never a reason for a conclusion.
+        if (facts.AboutAnotherPatientCount is var others and > 0)
+        {
+            setAside.Add(Invariant.Format(
+                $"{others} {(others == 1 ? "resource" : "resources")} about another patient {(others == 1 ? "was" : "were")} ignored (not shown, not used); check how the EHR selects this patient's data."));
         }
 
         detail.Bullets("Data set aside (not used, with the reason)", setAside);

@@ -40,6 +40,12 @@ public static class Cite
     public static string SetAside(SetAsideItem item)
     {
         Guard.NotNull(item, nameof(item));
+        if (item.State == FactState.NotThisPatient)
+        {
+            // Privacy: another patient's data is never shown, not even its id or time.
+            return "a resource about another patient (not shown)";
+        }
+
         var when = item.At is { } at ? ", " + Invariant.Time(at) : string.Empty;
         return $"{Markdown.Escape(item.Reference)} ({Markdown.Escape(item.What)}{when}): {Markdown.Escape(item.Reason)}";
     }

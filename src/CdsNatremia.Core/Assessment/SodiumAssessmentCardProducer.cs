@@ -8,8 +8,10 @@ namespace CdsNatremia.Core.Assessment;
 
 /// <summary>
 /// The one assessment card per request. A normal or high sodium gives no card (no alert noise; high sodium is out of
-/// scope). A low sodium runs the work-up rules in order and composes their output. When no sodium could be used but
-/// some were received, an info card says what was set aside and why, and gives no advice on it.
+/// scope), unless a newer sodium could not be read (<see cref="ImperfectSodiumCards.NewestUnreadable"/>). A newest sodium
+/// that is a bound gets <see cref="ImperfectSodiumCards.Bounded"/>. A low sodium runs the work-up rules in order and
+/// composes their output. When no sodium could be used but some were received, an info card says what was set aside and
+/// why, and gives no advice on it.
 /// </summary>
 public sealed class SodiumAssessmentCardProducer : ICardProducer
 {
@@ -29,6 +31,12 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
     {
         Guard.NotNull(context, nameof(context));
         var latest = context.Sodium.Latest;
+        if (context.Sodium.NewestBound is { } bound)
+        {
+            // A bound (e.g. "<100") newer than any measurement is reasoned with, never computed with.
+            return ImperfectSodiumCards.Bounded(context, bound, RuleId) is { } boundedCard ? [boundedCard] : [];
+        }
+
         if (latest is null)
         {
             return UnusableOnly(context);
@@ -37,13 +45,20 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
         var band = context.Thresholds.Classify(latest.Value);
         if (band is SeverityBand.Normal or SeverityBand.AboveRange)
         {
-            return [];
+            // Never silent when the newest sodium could not be read: "no card" would read as "sodium is fine".
+            return context.Sodium.NewerUnreadable.Count > 0 ? [ImperfectSodiumCards.NewestUnreadable(context, latest, RuleId)] : [];
         }
 
         var builder = new AssessmentBuilder();
         foreach (var rule in _rules)
         {
             rule.Apply(context, builder);
+        }
+
+        if (context.Request.Facts.SodiumHistoryUnavailable is { } history)
+        {
+            builder.Steps.Add(ImperfectSodiumCards.HistoryStep(history));
+            builder.Findings.Add("Sodium history was not available: onset, correction rate and drug timing could not be checked.");
         }
 
         return [Compose(context, latest, band, builder), .. builder.ExtraCards];
@@ -80,22 +95,28 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
     private IEnumerable<Card> UnusableOnly(DecisionContext context)
     {
         var facts = context.Request.Facts;
-        var sodiumSetAside = facts.SetAside.Where(s => s.Analyte == Analyte.Sodium).ToList();
-        if (sodiumSetAside.Count == 0)
+        var sodiumSetAside = facts.SetAside.Where(s => s.Analyte == Analyte.Sodium && s.State != FactState.NotThisPatient).ToList();
+        var anotherPatients = facts.SetAside.Count(s => s.Analyte == Analyte.Sodium && s.State == FactState.NotThisPatient);
+        if (sodiumSetAside.Count == 0 && anotherPatients == 0)
         {
             return [];
         }
 
+        // Another patient's results are only counted (in the footer): they never shape the summary.
         var detail = new DetailWriter()
-            .Paragraph(Invariant.Format(
-                $"**No usable sodium result.** {sodiumSetAside.Count} sodium result(s) were received but none could be used, so the service makes **no assessment** and gives no advice on them."))
+            .Paragraph(sodiumSetAside.Count > 0
+                ? Invariant.Format(
+                    $"**No usable sodium result.** {sodiumSetAside.Count} sodium result(s) of this patient were received but none could be used, so the service makes **no assessment** and gives no advice on them.")
+                : "**No usable sodium result of this patient** was received, so the service makes **no assessment**.")
             .Bullets("What to do", ["Check the results in the laboratory system, and repeat the sodium if it is needed."]);
         CardFooter.Write(detail, facts, []);
         return
         [
             new Card
             {
-                Summary = Summary.Fit(Invariant.Format($"{sodiumSetAside.Count} sodium result(s) could not be used (see detail); no assessment made.")),
+                Summary = Summary.Fit(sodiumSetAside.Count > 0
+                    ? Invariant.Format($"{sodiumSetAside.Count} sodium result(s) could not be used (see detail); no assessment made.")
+                    : "No usable sodium result of this patient; no assessment made — check the data and repeat sodium."),
                 Indicator = CardIndicator.Info,
                 Detail = detail.ToString(),
                 Topic = "sodium-assessment",

@@ -45,6 +45,9 @@ public sealed class SodiumSeverityRule : IAssessmentRule
                 $"**Age of the result**: taken {Invariant.Number(age)} h before this assessment, older than the {Invariant.Number(context.Sodium.StaleAfterHours)} h window: **stale**; today's sodium may differ."));
             card.Suggest(LabOrders.AsSuggestion(LabOrders.SerumSodium("Latest sodium is stale; recheck before acting."), recommended: true));
             card.OfferSummaryAction(50, "result is stale, recheck sodium");
+
+            // A stale result is a reason to recheck, not to interrupt: at most a warning (never critical).
+            card.LimitTo(CardIndicator.Warning);
         }
 
         if (latest.IsPreliminary)
@@ -58,7 +61,7 @@ public sealed class SodiumSeverityRule : IAssessmentRule
         }
 
         var newerSetAside = context.Request.Facts.SetAside
-            .Where(s => s.Analyte == Analyte.Sodium && s.At is { } at && at > latest.EffectiveAt)
+            .Where(s => s.Analyte == Analyte.Sodium && s.State == FactState.Unreadable && (s.At is not { } at || at > latest.EffectiveAt))
             .ToList();
         if (newerSetAside.Count > 0)
         {

@@ -117,10 +117,17 @@ public sealed class CorrectionRateCardProducer : ICardProducer
             ]);
         CardFooter.Write(detail, context.Request.Facts, RateText.Sources(limits));
 
+        // A stale latest result calls for a recheck first: at most a warning, never a critical interruption.
+        var stale = context.Sodium.LatestIsStale;
+        if (stale)
+        {
+            findings.Insert(0, Invariant.Format($"The latest sodium is **stale** (older than {RateText.Hours(context.Sodium.StaleAfterHours)} h): recheck before acting on this rate."));
+        }
+
         return new Card
         {
             Summary = summary,
-            Indicator = past ? CardIndicator.Critical : CardIndicator.Warning,
+            Indicator = past && !stale ? CardIndicator.Critical : CardIndicator.Warning,
             Detail = detail.ToString(),
             Topic = Topic,
             RuleIds = [RuleId],

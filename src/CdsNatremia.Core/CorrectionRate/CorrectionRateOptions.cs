@@ -89,6 +89,15 @@ public sealed class CorrectionRateOptions
     [Range(24, 24 * 14)]
     public double EpisodeLookbackHours { get; set; } = 72;
 
+    /// <summary>
+    /// No rate is computed between two results less than this many hours apart: over a shorter span the difference is
+    /// mostly measurement and specimen variation (and often a preliminary beside its correction), and a per-day rate
+    /// extrapolated from it is meaningless. Default 2 h (common practice: sodium is usually rechecked every 2–6 h during
+    /// active correction).
+    /// </summary>
+    [Range(0, 24)]
+    public double MinimumRateSpanHours { get; set; } = 2;
+
     /// <summary>A nadir at or below this, mmol/L, puts the patient at high risk. Default 105 (US panel, Verbalis et al. 2013; secondary).</summary>
     [Range(90, 130)]
     public double HighRiskNadirAtOrBelow { get; set; } = 105;

@@ -26,9 +26,14 @@ internal static class RateText
             : Invariant.Format($"the {Hours(w.LengthHours)} h ending {Invariant.Time(w.End)}, from {Invariant.Time(w.Start)}");
         var rise = ReferenceEquals(w.Baseline, w.Latest)
             ? Invariant.Format($"one value only, {Invariant.Number(w.Latest.Value)} mmol/L ({Markdown.Escape(w.Latest.Reference)}, {Invariant.Time(w.Latest.EffectiveAt)}), so no rise measured")
-            : Invariant.Format($"rise = {Invariant.Number(w.Latest.Value)} ({Markdown.Escape(w.Latest.Reference)}, {Invariant.Time(w.Latest.EffectiveAt)}) − {Invariant.Number(w.Baseline.Value)} ({Markdown.Escape(w.Baseline.Reference)}, {Invariant.Time(w.Baseline.EffectiveAt)}) = **{Mmol(w.Rise)}** over {Hours(w.ElapsedHours)} h");
+            : w.SpanTooShort
+                ? Invariant.Format($"{Invariant.Number(w.Baseline.Value)} ({Markdown.Escape(w.Baseline.Reference)}, {Invariant.Time(w.Baseline.EffectiveAt)}) and {Invariant.Number(w.Latest.Value)} ({Markdown.Escape(w.Latest.Reference)}, {Invariant.Time(w.Latest.EffectiveAt)}) are only {Hours(w.ElapsedHours)} h apart, less than the {Hours(options.MinimumRateSpanHours)} h minimum span, so no rate is computed from them (common practice)")
+                : Invariant.Format($"rise = {Invariant.Number(w.Latest.Value)} ({Markdown.Escape(w.Latest.Reference)}, {Invariant.Time(w.Latest.EffectiveAt)}) − {Invariant.Number(w.Baseline.Value)} ({Markdown.Escape(w.Baseline.Reference)}, {Invariant.Time(w.Baseline.EffectiveAt)}) = **{Mmol(w.Rise)}** over {Hours(w.ElapsedHours)} h");
+        var heading = w.MeasuredOverLongerSpan
+            ? Invariant.Format($"**{Hours(w.LengthHours)}-h limit, rise measured over {Hours(w.ElapsedHours)} h** (no result at the window's start, so the last one before it is the baseline; the rise within any {Hours(w.LengthHours)} h may be smaller)")
+            : Invariant.Format($"**{Hours(w.LengthHours)}-h window**");
         var text = Invariant.Format(
-            $"**{Hours(w.LengthHours)}-h window** ({kind}): {rise}; limit ({w.LimitLabel}) {Mmol(w.Limit)}; {Status(w.Status)}");
+            $"{heading} ({kind}): {rise}; limit ({w.LimitLabel}) {Mmol(w.Limit)}; {Status(w.Status)}");
         if (w.Status == RateStatus.Approaching && w.Rise < w.Limit - options.ApproachingWithinMmolPerL)
         {
             text += " (by projection)";

@@ -39,6 +39,15 @@ public sealed record RateWindow(
     /// </summary>
     public LabResult? PassedAt { get; init; }
 
+    /// <summary>
+    /// True when the baseline and the latest result are closer than the minimum span
+    /// (<see cref="CorrectionRateOptions.MinimumRateSpanHours"/>): no rate is computed and the status is "no rise".
+    /// </summary>
+    public bool SpanTooShort { get; init; }
+
+    /// <summary>True when the rise was measured over more hours than the window's length (no result at the window's start).</summary>
+    public bool MeasuredOverLongerSpan => ElapsedHours > LengthHours + (1.0 / 60);
+
     /// <summary>Hours between the baseline and the latest result.</summary>
     public double ElapsedHours => (Latest.EffectiveAt - Baseline.EffectiveAt).TotalHours;
 

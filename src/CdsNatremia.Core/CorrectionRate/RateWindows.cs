@@ -6,7 +6,8 @@ namespace CdsNatremia.Core.CorrectionRate;
 /// Measures the rise of sodium in 24-h and 48-h windows of an episode. A window of length L is anchored at the nadir
 /// while the time it is measured at is no more than L after the nadir (so a result exactly 24 h after the nadir still
 /// belongs to the first 24 h); later, it is the window of length L ending at that time, and its baseline is the lowest of
-/// the last result at or before the window's start and the results inside it. Pure.
+/// the last result at or before the window's start and the results inside it. No rate is measured between results less
+/// than <see cref="CorrectionRateOptions.MinimumRateSpanHours"/> apart (<see cref="RateWindow.SpanTooShort"/>). Pure.
 /// </summary>
 public static class RateWindows
 {
@@ -56,8 +57,10 @@ public static class RateWindows
         else
         {
             var atStart = inRange.Where(r => r.EffectiveAt <= start).OrderBy(r => r.EffectiveAt).LastOrDefault() ?? nadir;
+            // A baseline closer to the latest than the minimum span gives no rate (measurement variation, not correction).
             var candidates = inRange
-                .Where(r => r.EffectiveAt > start && CorrectionEpisode.Minute(r.EffectiveAt) < CorrectionEpisode.Minute(latest.EffectiveAt))
+                .Where(r => r.EffectiveAt > start && CorrectionEpisode.Minute(r.EffectiveAt) < CorrectionEpisode.Minute(latest.EffectiveAt)
+                    && (latest.EffectiveAt - r.EffectiveAt).TotalHours >= options.MinimumRateSpanHours)
                 .Prepend(atStart);
             baseline = candidates.OrderBy(r => r.Value).ThenBy(r => r.EffectiveAt).First();
         }
@@ -75,11 +78,12 @@ public static class RateWindows
 
         double? hoursLeft = anchored ? Math.Max(0, (end - now).TotalHours) : null;
         var elapsed = (latest.EffectiveAt - baseline.EffectiveAt).TotalHours;
-        double? projected = anchored && rise > 0 && elapsed > 0
+        var spanTooShort = !ReferenceEquals(latest, baseline) && elapsed < options.MinimumRateSpanHours;
+        double? projected = anchored && rise > 0 && elapsed > 0 && !spanTooShort
             ? rise + (rise / elapsed * Math.Max(0, (end - latest.EffectiveAt).TotalHours))
             : null;
 
-        var status = rise <= 0 ? RateStatus.NoRise
+        var status = rise <= 0 || spanTooShort ? RateStatus.NoRise
             : rise >= limit ? RateStatus.AtOrPast
             : rise >= limit - options.ApproachingWithinMmolPerL ? RateStatus.Approaching
             : projected >= limit && elapsed >= options.ProjectAfterHours ? RateStatus.Approaching
@@ -91,7 +95,8 @@ public static class RateWindows
         if (status != RateStatus.AtOrPast)
         {
             var peak = inRange
-                .Where(r => r.EffectiveAt > baseline.EffectiveAt && r.EffectiveAt >= start)
+                .Where(r => r.EffectiveAt > baseline.EffectiveAt && r.EffectiveAt >= start
+                    && (r.EffectiveAt - baseline.EffectiveAt).TotalHours >= options.MinimumRateSpanHours)
                 .OrderByDescending(r => r.Value)
                 .ThenBy(r => r.EffectiveAt)
                 .FirstOrDefault();
@@ -102,6 +107,10 @@ public static class RateWindows
             }
         }
 
-        return new RateWindow(lengthHours, anchored, start, end, baseline, latest, rise, limit, label, hoursLeft, projected, status) { PassedAt = passedAt };
+        return new RateWindow(lengthHours, anchored, start, end, baseline, latest, rise, limit, label, hoursLeft, projected, status)
+        {
+            PassedAt = passedAt,
+            SpanTooShort = spanTooShort,
+        };
     }
 }

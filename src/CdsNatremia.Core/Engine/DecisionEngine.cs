@@ -4,8 +4,10 @@ using CdsNatremia.Core.Knowledge;
 namespace CdsNatremia.Core.Engine;
 
 /// <summary>
-/// Runs every card producer that handles the hook, in registration order, and returns their cards, most urgent first.
-/// Pure and thread-safe: it holds only immutable options and knowledge.
+/// Runs every card producer that handles the hook, in registration order, and returns their cards, most urgent first:
+/// critical before warning before info; among cards of the same urgency, a safety card (correction rate, order warning)
+/// before the work-up card, so a critical correction-rate card is never preceded by the work-up. Ties keep registration
+/// order. Pure and thread-safe: it holds only immutable options and knowledge.
 /// </summary>
 public sealed class DecisionEngine
 {
@@ -33,8 +35,12 @@ public sealed class DecisionEngine
             .SelectMany(p => p.Produce(context))
             .Select((card, index) => (card, index))
             .OrderByDescending(x => x.card.Indicator)
+            .ThenBy(x => WorkupLast(x.card))
             .ThenBy(x => x.index)
             .Select(x => x.card)
             .ToList();
     }
+
+    /// <summary>0 for a safety card, 1 for the work-up (sodium assessment) card.</summary>
+    private static int WorkupLast(Card card) => string.Equals(card.Topic, "sodium-assessment", StringComparison.Ordinal) ? 1 : 0;
 }
