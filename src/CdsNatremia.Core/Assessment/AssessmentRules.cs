@@ -17,6 +17,7 @@ public static class AssessmentRules
         new VolumeCluesRule(),
         new SiadhChecklistRule(),
         new DrugCauseRule(),
+        new RecentlyStoppedDrugRule(),
         new MissingTestsRule(),
     ];
 }

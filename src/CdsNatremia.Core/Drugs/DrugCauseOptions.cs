@@ -51,6 +51,15 @@ public sealed class DrugCauseOptions
     [Range(1, 2160)]
     public double ProfoundRecheckWithinHours { get; set; } = 24;
 
+    /// <summary>
+    /// A medicine recorded as stopped or completed counts as "recently stopped" when it ended within this many days before
+    /// the assessment: a possible contributor (never "likely" once stopped), and it fails the SIADH "no recent diuretic
+    /// use" criterion. Default 14 days (from memory: the effect of a thiazide on sodium can outlast the last dose by about
+    /// one to two weeks). Filtered here, in code, because prefetch tokens cannot express dates.
+    /// </summary>
+    [Range(0, 365)]
+    public double RecentlyStoppedWithinDays { get; set; } = 14;
+
     /// <summary>When true (default), drugs of the secondary tier ("other known contributors") also raise the order warning.</summary>
     public bool WarnOnSecondaryTier { get; set; } = true;
 }

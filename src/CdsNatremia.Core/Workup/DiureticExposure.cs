@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Drugs;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Knowledge;
@@ -35,12 +36,79 @@ public sealed record DiureticExposure(MedicationFact Medication, MedicationMatch
             .ToList();
     }
 
+    /// <summary>
+    /// Diuretics recorded as stopped or completed within the look-back (<see cref="DrugCauseOptions.RecentlyStoppedWithinDays"/>),
+    /// dated or not (<see cref="RecentlyStopped"/>).
+    /// </summary>
+    public static IReadOnlyList<DiureticExposure> FindRecentlyStopped(DecisionContext context)
+    {
+        Guard.NotNull(context, nameof(context));
+        var sets = DiureticSets(context.Knowledge).ToList();
+        return RecentlyStopped.Find(context.Request.Facts, context.Request.Now, context.Options.DrugCause)
+            .Select(m => sets.Select(s => MedicationMatching.Match(s, m)).OfType<MedicationMatch>().Select(match => new DiureticExposure(m, match)).FirstOrDefault())
+            .OfType<DiureticExposure>()
+            .ToList();
+    }
+
+    /// <summary>
+    /// Recent diuretic use as a fact with its state: usable (the diuretics in use, intended, or stopped within the
+    /// look-back with a date); could not be read (a medicine record whose product could not be read and that did not
+    /// match a diuretic, a diuretic stopped on an unknown date, or a medication list that could not be obtained), naming
+    /// the item by its own text; absent only after a real look at a readable list.
+    /// </summary>
+    public static Observed<IReadOnlyList<DiureticExposure>> Observe(DecisionContext context)
+    {
+        Guard.NotNull(context, nameof(context));
+        var facts = context.Request.Facts;
+        var stopped = FindRecentlyStopped(context);
+        var found = Find(context).Concat(stopped.Where(d => RecentlyStopped.IsDated(d.Medication))).ToList();
+        if (found.Count > 0)
+        {
+            return Observed<IReadOnlyList<DiureticExposure>>.Usable(found);
+        }
+
+        if (stopped.FirstOrDefault() is { } undated)
+        {
+            return Observed<IReadOnlyList<DiureticExposure>>.Unreadable(
+                "a diuretic is recorded as stopped without a stop date, " + undated.Medication.Reference, undated.Medication.Text ?? undated.Match.Ingredient);
+        }
+
+        var recentStopped = RecentlyStopped.Find(facts, context.Request.Now, context.Options.DrugCause);
+        var unreadable = facts.Medications.Where(m => m.Use is MedicationUse.Active or MedicationUse.Intended)
+            .Concat(recentStopped)
+            .Where(m => m.ProductUnreadable is not null)
+            .OrderBy(m => m.Reference, StringComparer.Ordinal)
+            .ToList();
+        if (unreadable.FirstOrDefault() is { } medicine)
+        {
+            var more = unreadable.Count > 1 ? Invariant.Format($" (and {unreadable.Count - 1} more unreadable medicine record(s))") : string.Empty;
+            return Observed<IReadOnlyList<DiureticExposure>>.Unreadable($"{medicine.Reference}: {medicine.ProductUnreadable}{more}", medicine.Text);
+        }
+
+        var setAside = facts.SetAside.FirstOrDefault(i => i.State == FactState.Unreadable
+            && (i.Reference.StartsWith("MedicationStatement/", StringComparison.Ordinal) || i.Reference.StartsWith("MedicationRequest/", StringComparison.Ordinal)));
+        if (setAside is not null)
+        {
+            return Observed<IReadOnlyList<DiureticExposure>>.Unreadable($"{setAside.Reference}: {setAside.Reason}", setAside.What);
+        }
+
+        return WorkupData.MedicationsUnreadable(facts)
+            ? Observed<IReadOnlyList<DiureticExposure>>.Unreadable("the medication list could not be obtained")
+            : Observed<IReadOnlyList<DiureticExposure>>.Absent(Invariant.Format(
+                $"no diuretic in the medication record, in use or stopped within {Invariant.Number(context.Options.DrugCause.RecentlyStoppedWithinDays)} days"));
+    }
+
     /// <summary>True when the diuretic was (or may have been) in use at <paramref name="at"/>: started before it, or start unknown.</summary>
     public bool InUseAt(DateTimeOffset at) => Medication.Use == MedicationUse.Active && (Medication.StartedAt is not { } start || start <= at);
 
     /// <summary>"metolazone (thiazide or thiazide-like diuretic, MedicationStatement/s07-mtz, since 2026-02-24 00:00 UTC)".</summary>
     public string Describe()
     {
+        if (Medication.Use == MedicationUse.Stopped)
+        {
+            return $"{Markdown.Escape(Match.Ingredient)} ({Markdown.Escape(Match.Set.Label)}, recently stopped: {RecentlyStopped.When(Medication)})";
+        }
+
         var since = Medication.StartedAt is { } start ? "since " + Invariant.Time(start) : "start time not recorded";
         var use = Medication.Use == MedicationUse.Intended ? "intended, " : string.Empty;
         return $"{Markdown.Escape(Match.Ingredient)} ({Markdown.Escape(Match.Set.Label)}, {use}{Markdown.Escape(Medication.Reference)}, {since})";

@@ -1,6 +1,7 @@
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Text;
 
 namespace CdsNatremia.Core.Workup;
 
@@ -35,7 +36,7 @@ public sealed class SiadhChecklistRule : IAssessmentRule
 
         var met = criteria.Count(c => c.Status == CriterionStatus.Met);
         var notMet = criteria.Count(c => c.Status == CriterionStatus.NotMet);
-        var unknown = criteria.Count(c => c.Status == CriterionStatus.Unknown);
+        var unknown = criteria.Count(c => c.Status is CriterionStatus.Unknown or CriterionStatus.CouldNotBeRead);
         var verdict = notMet > 0
             ? "SIADH cannot be diagnosed on these data while a criterion is not met"
             : unknown > 0
@@ -64,17 +65,20 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         list.Add(tonicity.Effective is { } effective
             ? new SiadhCriterion(hypo, effective < options.HypotonicBelow ? CriterionStatus.Met : CriterionStatus.NotMet,
                 Invariant.Format($"{Invariant.Number(effective)} mOsm/kg ({(tonicity.Method == OsmolalityMethod.Measured ? "from " + Cite.Result(tonicity.Measured!) : "calculated")})"))
-            : new SiadhCriterion(hypo, CriterionStatus.Unknown, "no serum osmolality"));
+            : context.Request.Facts.Observe(Analyte.SerumOsmolality).CouldNotBeReadText is { } unreadOsm
+                ? new SiadhCriterion(hypo, CriterionStatus.CouldNotBeRead, unreadOsm)
+                : new SiadhCriterion(hypo, CriterionStatus.Unknown, "no serum osmolality"));
 
         var uosmName = Invariant.Format($"Urine osmolality > {Invariant.Number(options.DiluteUrineAtOrBelow)} mOsm/kg");
+        var urineFrom = context.Sodium.Latest is { } assessed ? assessed.EffectiveAt.AddHours(-options.UrineUsableBeforeSodiumHours) : (DateTimeOffset?)null;
         list.Add(urine.Osmolality is { } uosm
             ? new SiadhCriterion(uosmName, uosm.Value > options.DiluteUrineAtOrBelow ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(uosm))
-            : new SiadhCriterion(uosmName, CriterionStatus.Unknown, "no urine osmolality"));
+            : Urine(context, uosmName, Analyte.UrineOsmolality, urineFrom, options.DiluteUrineAtOrBelow, "no urine osmolality"));
 
         var unaName = Invariant.Format($"Urine sodium > {Invariant.Number(options.LowUrineSodiumAtOrBelow)} mmol/L on normal salt and water intake");
         list.Add(urine.Sodium is { } una
             ? new SiadhCriterion(unaName, una.Value > options.LowUrineSodiumAtOrBelow ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(una))
-            : new SiadhCriterion(unaName, CriterionStatus.Unknown, "no urine sodium"));
+            : Urine(context, unaName, Analyte.UrineSodium, urineFrom, options.LowUrineSodiumAtOrBelow, "no urine sodium"));
 
         list.Add(new SiadhCriterion("Clinical euvolaemia", CriterionStatus.ClinicianToAssess, "the service cannot examine the patient (see the volume clues)"));
         list.Add(Thyroid(context, options));
@@ -89,7 +93,7 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         var tsh = Recent(context, Analyte.Thyrotropin, options);
         if (tsh is null)
         {
-            return new SiadhCriterion(name, CriterionStatus.Unknown, Invariant.Format($"no TSH within {Invariant.Number(options.EndocrineTestMaxAgeDays)} days"));
+            return NotMeasured(context, name, Analyte.Thyrotropin, Invariant.Format($"no TSH within {Invariant.Number(options.EndocrineTestMaxAgeDays)} days"));
         }
 
         var low = tsh.ReferenceLow ?? options.ThyrotropinNormalFrom;
@@ -105,7 +109,7 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         var cortisol = Recent(context, Analyte.Cortisol, options);
         if (cortisol is null)
         {
-            return new SiadhCriterion(name, CriterionStatus.Unknown, Invariant.Format($"no cortisol within {Invariant.Number(options.EndocrineTestMaxAgeDays)} days"));
+            return NotMeasured(context, name, Analyte.Cortisol, Invariant.Format($"no cortisol within {Invariant.Number(options.EndocrineTestMaxAgeDays)} days"));
         }
 
         var low = cortisol.ReferenceLow ?? options.CortisolNormalFrom;
@@ -119,14 +123,42 @@ public sealed class SiadhChecklistRule : IAssessmentRule
     private static SiadhCriterion Diuretics(DecisionContext context, UrineStudies urine)
     {
         const string name = "No recent diuretic use";
-        if (urine.Diuretics.Count > 0)
-        {
-            return new SiadhCriterion(name, CriterionStatus.NotMet, string.Join("; ", urine.Diuretics.Select(d => d.Describe())));
-        }
+        Guard.NotNull(urine, nameof(urine));
 
-        return WorkupData.MedicationsUnreadable(context.Request.Facts)
-            ? new SiadhCriterion(name, CriterionStatus.Unknown, "the medication list could not be read")
-            : new SiadhCriterion(name, CriterionStatus.Met, "no diuretic in the medication record (confirm with the patient)");
+        // A negative criterion: met only when diuretics are absent after a real look; an unreadable medicine makes it unknown.
+        return DiureticExposure.Observe(context).Match(
+            found => new SiadhCriterion(name, CriterionStatus.NotMet, string.Join("; ", found.Select(d => d.Describe()))),
+            found => new SiadhCriterion(name, CriterionStatus.NotMet, string.Join("; ", found.Select(d => d.Describe()))),
+            unread => new SiadhCriterion(name, CriterionStatus.CouldNotBeRead, unread.CouldNotBeReadText!),
+            looked => new SiadhCriterion(name, CriterionStatus.Met, Markdown.Escape(looked) + " (confirm with the patient)"));
+    }
+
+    /// <summary>A urine criterion ("above the threshold") with no usable measurement: judged on a bound when one decides it, else unknown or could not be read.</summary>
+    private static SiadhCriterion Urine(DecisionContext context, string name, Analyte analyte, DateTimeOffset? from, double threshold, string absentText)
+    {
+        var observed = context.Request.Facts.Observe(analyte, from);
+        var status = observed.Judge(r => r.Value > threshold, r => Bounds.IsAbove(r, threshold));
+        return observed.Match(
+            usable => new SiadhCriterion(name, status, Cite.Result(usable)),
+            bound => new SiadhCriterion(name, status, Invariant.Format(
+                $"{AnalyteUnits.DisplayName(analyte)} {Bounds.Describe(bound)} {bound.Unit} at {Invariant.Time(bound.EffectiveAt)} ({Markdown.Escape(bound.Reference)}; a bound{(status == CriterionStatus.Unknown ? " that does not decide this criterion" : string.Empty)})")),
+            unread => new SiadhCriterion(name, CriterionStatus.CouldNotBeRead, unread.CouldNotBeReadText!),
+            _ => new SiadhCriterion(name, CriterionStatus.Unknown, absentText));
+    }
+
+    /// <summary>
+    /// A criterion with no usable measurement: could not be read when the only results were set aside or another
+    /// patient's (or only a bound that does not decide it); otherwise unknown for lack of data.
+    /// </summary>
+    private static SiadhCriterion NotMeasured(DecisionContext context, string name, Analyte analyte, string absentText)
+    {
+        var from = context.Request.Now.AddDays(-context.Options.Workup.EndocrineTestMaxAgeDays);
+        return context.Request.Facts.Observe(analyte, from).Match(
+            usable => new SiadhCriterion(name, CriterionStatus.Unknown, absentText),
+            bound => new SiadhCriterion(name, CriterionStatus.Unknown, Invariant.Format(
+                $"{AnalyteUnits.DisplayName(analyte)} {Bounds.Describe(bound)} {bound.Unit} ({Markdown.Escape(bound.Reference)}) is a bound, not a measurement; it does not decide this criterion")),
+            unread => new SiadhCriterion(name, CriterionStatus.CouldNotBeRead, unread.CouldNotBeReadText!),
+            _ => new SiadhCriterion(name, CriterionStatus.Unknown, absentText));
     }
 
     private static LabResult? Recent(DecisionContext context, Analyte analyte, WorkupOptions options)

@@ -59,6 +59,18 @@ public sealed class VolumeCluesRule : IAssessmentRule
             clues.Add("diuretic in use: " + diuretic.Describe() + ": sodium and volume loss; urine sodium is hard to read");
         }
 
+        foreach (var stopped in DiureticExposure.FindRecentlyStopped(context))
+        {
+            card.ResourcesUsed.Add(stopped.Medication.Reference);
+            clues.Add("diuretic recently stopped: " + stopped.Describe() + ": recent sodium and volume loss is possible");
+        }
+
+        // Set-aside data is not "no clue": a medicine that could not be read makes diuretic use unknown, named by its own text.
+        if (DiureticExposure.Observe(context).CouldNotBeReadText is { } unreadable)
+        {
+            clues.Add("diuretic use: **unknown** (" + unreadable + ")");
+        }
+
         var facts = context.Request.Facts;
         var unavailable = new List<string>();
         if (WorkupData.ConditionsUnreadable(facts))

@@ -7,7 +7,8 @@ namespace CdsNatremia.Service.Hooks;
 
 /// <summary>
 /// From a validated request to cards: read prefetch, obtain what is missing, refuse with 412 when required data
-/// cannot be had, assemble facts, run the engine. No HTTP types here; the endpoint maps the outcome.
+/// cannot be had (except on the result hook when the arrived results hold a sodium: it then answers from them and says
+/// which checks the missing history leaves undone), assemble facts, run the engine. No HTTP types here; the endpoint maps the outcome.
 /// </summary>
 public sealed class HookHandler
 {
@@ -79,14 +80,21 @@ public sealed class HookHandler
             .Where(v => v is null || v.Kind is PrefetchValueKind.Failed or PrefetchValueKind.Unusable)
             .SelectMany(v => v?.Problems ?? [])
             .ToList();
+        var contextResources = ContextResources(service, request);
+        var assembled = _assembler.Assemble(request.PatientId, now, values, contextResources.Resources, contextResources.Unreadable);
+        var facts = assembled.Facts;
         if (missing.Count > 0)
         {
-            return new HookOutcome.MissingData(missing);
+            // The result hook answers from the arrived results when the history cannot be had, saying which checks that
+            // leaves undone; without a sodium among them there is nothing to assess (412).
+            if (service.Kind != HookKind.ResultArrive || !ArrivedSodium(facts))
+            {
+                return new HookOutcome.MissingData(missing);
+            }
+
+            facts = facts with { SodiumHistoryUnavailable = string.Join("; ", missing) };
         }
 
-        var contextResources = ContextResources(service, request);
-        var assembled = _assembler.Assemble(request.PatientId, now, values, contextResources.Resources);
-        var facts = assembled.Facts;
         if (contextResources.Problems.Count > 0)
         {
             facts = facts with { DataNotes = [.. facts.DataNotes, .. contextResources.Problems] };
@@ -107,10 +115,16 @@ public sealed class HookHandler
         return new HookOutcome.Cards(_engine.Decide(decision), request.PatientId, now);
     }
 
-    private (List<ParsedResource> Resources, List<string> Problems) ContextResources(ServiceDefinition service, HookRequest request)
+    /// <summary>True when the hook context brought a sodium of this patient: measured, bounded or unreadable.</summary>
+    private static bool ArrivedSodium(PatientFacts facts)
+        => facts.Labs.Concat(facts.BoundedLabs).Any(l => l.Analyte == Analyte.Sodium && l.Origin == DataOrigin.Context)
+            || facts.SetAside.Any(s => s.Analyte == Analyte.Sodium && s.State == FactState.Unreadable);
+
+    private (List<ParsedResource> Resources, List<string> Problems, List<UnreadableObservation> Unreadable) ContextResources(ServiceDefinition service, HookRequest request)
     {
         var resources = new List<ParsedResource>();
         var problems = new List<string>();
+        var unreadable = new List<UnreadableObservation>();
         foreach (var field in service.Context.Where(f => f.Kind == ContextFieldKind.Bundle))
         {
             if (!request.Context.TryGetProperty(field.Name, out var bundle))
@@ -120,10 +134,11 @@ public sealed class HookHandler
 
             var value = _bundles.Read("context." + field.Name, bundle, DataOrigin.Context);
             resources.AddRange(value.Resources.Select(r => r with { Source = "context." + field.Name }));
+            unreadable.AddRange(value.UnreadableObservations);
             problems.AddRange(value.Problems.Select(p => p.Replace("prefetch 'context.", "context '", StringComparison.Ordinal)));
         }
 
-        return (resources, problems);
+        return (resources, problems, unreadable);
     }
 
     private static IReadOnlyList<string> Strings(JsonElement context, string name)

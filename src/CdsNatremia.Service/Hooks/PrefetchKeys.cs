@@ -21,10 +21,10 @@ public static class PrefetchKeys
     /// <summary>Active conditions.</summary>
     public const string Conditions = "conditions";
 
-    /// <summary>Medication statements.</summary>
+    /// <summary>Medication statements: in use, intended, on hold, and stopped or completed (the rules keep only those that stopped recently).</summary>
     public const string MedicationStatements = "medicationStatements";
 
-    /// <summary>Active medication orders.</summary>
+    /// <summary>Medication orders: active, on hold, and stopped or completed (filtered by date in code: tokens cannot express dates).</summary>
     public const string MedicationRequests = "medicationRequests";
 
     private const string Loinc = "http://loinc.org|";
@@ -45,7 +45,7 @@ public static class PrefetchKeys
         [Labs] = $"Observation?patient={{{{context.patientId}}}}&code={LabCodes}&_sort=-date&_count=200",
         [Weight] = "Observation?patient={{context.patientId}}&code=http://loinc.org|29463-7&_sort=-date&_count=1",
         [Conditions] = "Condition?patient={{context.patientId}}&clinical-status=active",
-        [MedicationStatements] = "MedicationStatement?patient={{context.patientId}}&status=active,intended",
-        [MedicationRequests] = "MedicationRequest?patient={{context.patientId}}&status=active",
+        [MedicationStatements] = "MedicationStatement?patient={{context.patientId}}&status=active,intended,on-hold,stopped,completed",
+        [MedicationRequests] = "MedicationRequest?patient={{context.patientId}}&status=active,on-hold,stopped,completed",
     };
 }
