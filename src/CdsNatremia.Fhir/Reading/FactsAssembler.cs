@@ -72,7 +72,7 @@ public sealed class FactsAssembler
             {
                 // Defence in depth: a value the parser let through but the model cannot interpret (a wrong JSON type read
                 // lazily, a null inside a list) sets that one resource aside; it must never cost the patient the whole answer.
-                setAside.Add(new SetAsideItem($"{item.Resource.TypeName}/{item.Resource.Id}", item.Resource.TypeName, "a value in it could not be interpreted"));
+                setAside.Add(Uninterpretable(item.Resource, patientId));
             }
         }
 
@@ -160,6 +160,41 @@ public sealed class FactsAssembler
             Unavailable = unavailable,
         };
         return new AssembledFacts(facts, drafts);
+    }
+
+    /// <summary>
+    /// A resource the model could not interpret. For an Observation, its code, time and subject are still read where they
+    /// can be, so an uninterpretable newest sodium is known as such (and another patient's is only counted).
+    /// </summary>
+    private static SetAsideItem Uninterpretable(Resource resource, string patientId)
+    {
+        const string reason = "a value in it could not be interpreted";
+        var reference = $"{resource.TypeName}/{resource.Id}";
+        if (resource is not Observation observation)
+        {
+            return new SetAsideItem(reference, resource.TypeName, reason);
+        }
+
+        Analyte? analyte = null;
+        DateTimeOffset? at = null;
+        string? subject = null;
+        try
+        {
+            analyte = observation.Code?.Coding?.Where(c => c?.System == CodeSystems.Loinc && c.Code is not null)
+                .Select(c => LoincCatalog.TryGet(c.Code!, out var entry) ? entry.Analyte : (Analyte?)null)
+                .FirstOrDefault(a => a is not null);
+            at = FhirTime.From(observation.Effective) ?? FhirTime.From(observation.IssuedElement);
+            subject = observation.Subject?.Reference;
+        }
+        catch (Exception ex) when (ex is Hl7.Fhir.Utility.CodedException or FormatException or InvalidCastException or OverflowException
+            or NullReferenceException or InvalidOperationException or ArgumentException)
+        {
+            // Nothing more can be told about it; it stays an unreadable Observation.
+        }
+
+        return subject is not null && !References.IsPatient(subject, patientId)
+            ? SetAsideItem.AboutAnotherPatient("Observation", analyte)
+            : new SetAsideItem(reference, analyte is { } a ? AnalyteUnits.DisplayName(a) + " (value not interpretable)" : "Observation", reason, analyte, at);
     }
 
     /// <summary>True when the subject names a patient other than this one (a missing subject is left to each reader).</summary>

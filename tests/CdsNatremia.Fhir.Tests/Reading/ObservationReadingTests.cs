@@ -78,11 +78,16 @@ public class ObservationReadingTests
     }
 
     [Fact]
-    public void AnotherPatientsResult_SetAside()
+    public void AnotherPatientsResult_SetAsideCountedOnlyWithNothingIdentifying()
     {
-        var facts = Json.Read(Json.Bundle(Json.Observation(subject: "Patient/someone-else")));
+        var facts = Json.Read(Json.Bundle(Json.Observation(id: "na-other", value: "112", subject: "Patient/someone-else")));
         Assert.Empty(facts.Labs);
-        Assert.Contains("not the patient", Assert.Single(facts.SetAside).Reason, StringComparison.Ordinal);
+        var item = Assert.Single(facts.SetAside);
+        Assert.Equal(FactState.NotThisPatient, item.State);
+        Assert.DoesNotContain("na-other", item.Reference + item.What + item.Reason, StringComparison.Ordinal); // privacy: no id
+        Assert.DoesNotContain("112", item.Reference + item.What + item.Reason, StringComparison.Ordinal);      // privacy: no value
+        Assert.Null(item.At);                                                                                  // privacy: no time
+        Assert.Equal(1, facts.AboutAnotherPatientCount);
     }
 
     [Fact]
