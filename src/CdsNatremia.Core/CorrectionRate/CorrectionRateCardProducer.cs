@@ -115,7 +115,7 @@ public sealed class CorrectionRateCardProducer : ICardProducer
                 "Checking sodium again soon and often while the rise is this fast, at the interval local protocol sets.",
                 "The limits are for chronic hyponatremia (present 48 h or more, or of unknown duration; 2014 European guideline); where it is documented to be acute, the balance of risks differs, and a senior clinician weighs it.",
             ]);
-        CardFooter.Write(detail, context.Request.Facts, RateText.Sources(limits));
+        CardFooter.Write(detail, context, RateText.Sources(limits));
 
         return new Card
         {
@@ -201,7 +201,7 @@ public sealed class CorrectionRateCardProducer : ICardProducer
                 "Whether the current treatment matches the cause found by the work-up, and whether symptoms call for faster correction within the limits.",
                 "Checking sodium again at the interval local protocol sets.",
             ]);
-        CardFooter.Write(detail, context.Request.Facts, RateText.Sources(limits));
+        CardFooter.Write(detail, context, RateText.Sources(limits));
         return new Card
         {
             Summary = summary,
