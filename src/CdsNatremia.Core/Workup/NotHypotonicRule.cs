@@ -80,12 +80,12 @@ public sealed class NotHypotonicRule : IAssessmentRule
 
         if (t.Band == Tonicity.Hypertonic)
         {
-            card.MarkNotHypotonic(Invariant.Format($"glucose {Invariant.Number(t.Glucose.Value)} mmol/L"));
+            card.MarkNotHypotonic(Invariant.Format($"glucose {ClinicalNumber.Rounded(t.Glucose.Value, 1)} mmol/L"));
             card.Findings.Insert(0, "This is **not hypotonic hyponatremia**: glucose holds water outside the cells and dilutes the sodium. The correction limits of hypotonic hyponatremia do not apply to this dilution.");
             card.NextSteps.Add(Invariant.Format(
                 $"Treat the hyperglycaemia and any volume deficit rather than the sodium (no treatment for the dilution itself); the sodium rises as glucose falls, towards the corrected value of about {Invariant.Number(chosen)} mmol/L, so recheck sodium and glucose together."));
             card.Differential.Add("Hyperglycaemia (translocational, hypertonic hyponatremia).");
-            card.OfferSummaryAction(SummaryPriority, Invariant.Format($"hypertonic from glucose; corrected sodium {Invariant.Number(chosen)} mmol/L ({chosenName})"));
+            card.OfferSummaryAction(SummaryPriority, Invariant.Format($"corrected sodium {Invariant.Number(chosen)} mmol/L ({chosenName})"));
         }
         else
         {
