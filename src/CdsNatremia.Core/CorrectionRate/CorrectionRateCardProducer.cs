@@ -96,7 +96,7 @@ public sealed class CorrectionRateCardProducer : ICardProducer
 
         if (worst.ProjectedRise is { } projected)
         {
-            findings.Add(Invariant.Format($"If the current rate goes on, the rise would be {RateText.Mmol(projected)} by {Invariant.Time(worst.End)}."));
+            findings.Add(Invariant.Format($"If the current rate goes on, the rise would be {RateText.MmolRounded(projected)} by {Invariant.Time(worst.End)}."));
         }
 
         findings.Add(RateText.HighRisk(factors, limits));
@@ -194,7 +194,7 @@ public sealed class CorrectionRateCardProducer : ICardProducer
             .Numbered("Computation (with its inputs)",
             [
                 Invariant.Format($"Change = {Invariant.Number(latest.Value)} − {Invariant.Number(earlier.Value)} = {RateText.Mmol(change)} over {RateText.Hours(hours)} h."),
-                Invariant.Format($"Per 24 h = {RateText.Mmol(change)} / {RateText.Hours(hours)} h × 24 = {RateText.Mmol(perDay)}; minimum goal {RateText.Mmol(goal)} per day{(highRisk ? " (high risk)" : string.Empty)} ({Markdown.Escape(limits.Name)})."),
+                Invariant.Format($"Per 24 h = {RateText.Mmol(change)} / {RateText.Hours(hours)} h × 24 = {RateText.MmolRounded(perDay)}; minimum goal {RateText.Mmol(goal)} per day{(highRisk ? " (high risk)" : string.Empty)} ({Markdown.Escape(limits.Name)})."),
             ])
             .Bullets("Options clinicians usually discuss (with a senior clinician, under local protocol; not orders)",
             [
