@@ -56,7 +56,7 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
         // Tonicity decides the summary's opening: a hypertonic low sodium is "not hypotonic" first, never a low-sodium emergency.
         var summary = Summary.Fit(builder.NotHypotonicEvidence is { } evidence
             ? Invariant.Format(
-                $"Not hypotonic: sodium {Invariant.Number(latest.Value)} mmol/L with {evidence}{labels} ({Invariant.ShortTime(latest.EffectiveAt)}) — {builder.SummaryAction ?? "review"}.")
+                $"Not hypotonic: sodium {Invariant.Number(latest.Value)} mmol/L ({thresholds.NameOf(band)} range{labels}, {Invariant.ShortTime(latest.EffectiveAt)}) with {evidence} — {builder.SummaryAction ?? "review"}.")
             : Invariant.Format(
                 $"Sodium {Invariant.Number(latest.Value)} mmol/L ({thresholds.NameOf(band)} hyponatremia{labels}, {Invariant.ShortTime(latest.EffectiveAt)}) — {builder.SummaryAction ?? "review"}."));
 

@@ -191,8 +191,8 @@ public sealed class NotHypotonicRule : IAssessmentRule
         card.Differential.Add("Hypertonic hyponatremia from mannitol, irrigation fluids or contrast; raised osmolality from alcohols or urea.");
         card.NextSteps.Add("Review recent infusions, surgery with irrigation, contrast studies and alcohol or toxic-alcohol exposure; treat the cause rather than the sodium.");
         card.OfferSummaryAction(SummaryPriority, likely is null
-            ? "look for another osmole; treat the cause, not the sodium"
-            : Invariant.Format($"likely {likely}; treat the cause, not the sodium"));
+            ? "look for another osmole; treat the cause"
+            : Invariant.Format($"likely {likely}; treat the cause"));
     }
 
     private static void OsmoleWithoutOsmolality(IReadOnlyList<(MedicationFact Medication, string Label)> agents, AssessmentBuilder card)
