@@ -8,8 +8,11 @@ public static class Invariant
     /// <summary>Formats an interpolated string with the invariant culture.</summary>
     public static string Format(FormattableString text) => Guard.NotNull(text, nameof(text)).ToString(CultureInfo.InvariantCulture);
 
-    /// <summary>A number with at most one decimal, e.g. 124 or 124.5.</summary>
-    public static string Number(double value) => value.ToString("0.#", CultureInfo.InvariantCulture);
+    /// <summary>
+    /// A clinical number printed with the precision it was used with (<see cref="Text.ClinicalNumber.Format"/>): 124,
+    /// 124.5, 0.45. Round a computed result explicitly before printing it.
+    /// </summary>
+    public static string Number(double value) => Text.ClinicalNumber.Format(value);
 
     /// <summary>A time as cards print it: "2026-03-10 06:30 UTC".</summary>
     public static string Time(DateTimeOffset value) => value.ToUniversalTime().ToString("yyyy-MM-dd HH:mm 'UTC'", CultureInfo.InvariantCulture);

@@ -43,6 +43,19 @@ public sealed class AssessmentBuilder
     /// <summary>The card's indicator so far: the highest raised, but never above a ceiling a rule set.</summary>
     public CardIndicator Indicator => _raised > _ceiling ? _ceiling : _raised;
 
+    /// <summary>
+    /// Set when the low sodium is shown not to be hypotonic (hypertonic): the short evidence the summary leads with, e.g.
+    /// "osmolality 305 mOsm/kg". The card then opens with "Not hypotonic", and its indicator is capped at warning: the
+    /// correction limits of hypotonic hyponatremia do not apply and it is not an emergency low-sodium card.
+    /// </summary>
+    public string? NotHypotonicEvidence { get; private set; }
+
+    /// <summary>Marks the card as not hypotonic (see <see cref="NotHypotonicEvidence"/>); the first call wins.</summary>
+    public void MarkNotHypotonic(string evidence) => NotHypotonicEvidence ??= evidence;
+
+    /// <summary>The indicator the card carries: <see cref="Indicator"/>, capped at warning when not hypotonic.</summary>
+    public CardIndicator FinalIndicator => NotHypotonicEvidence is not null && Indicator > CardIndicator.Warning ? CardIndicator.Warning : Indicator;
+
     /// <summary>Raises the indicator; never lowers it.</summary>
     public void Raise(CardIndicator indicator)
     {

@@ -1,3 +1,4 @@
+using CdsNatremia.Core.CorrectionRate;
 using CdsNatremia.Core.Drugs;
 using CdsNatremia.Core.Workup;
 
@@ -10,12 +11,16 @@ public static class AssessmentRules
     public static IReadOnlyList<IAssessmentRule> Default() =>
     [
         new SodiumSeverityRule(),
+        new PaediatricRule(),
         new TonicityRule(),
         new NotHypotonicRule(),
         new OnsetRule(),
+        new HighRiskRule(),
         new UrineStudiesRule(),
+        new FurstRatioRule(),
         new VolumeCluesRule(),
         new SiadhChecklistRule(),
+        new LowCortisolRule(),
         new DrugCauseRule(),
         new RecentlyStoppedDrugRule(),
         new MissingTestsRule(),

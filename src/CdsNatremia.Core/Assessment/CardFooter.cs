@@ -1,4 +1,5 @@
 using CdsNatremia.Core.Cards;
+using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Text;
 
@@ -14,6 +15,21 @@ public static class CardFooter
 
     /// <summary>Writes the shared closing sections.</summary>
     public static void Write(DetailWriter detail, PatientFacts facts, IEnumerable<string> sources)
+        => Write(detail, facts, sources, []);
+
+    /// <summary>
+    /// Writes the shared closing sections with the cautions that depend on the request: for a patient under the adult age,
+    /// that adult thresholds and correction limits may not apply (<see cref="SafetyCautions.Paediatric"/>).
+    /// </summary>
+    public static void Write(DetailWriter detail, DecisionContext context, IEnumerable<string> sources)
+    {
+        Guard.NotNull(context, nameof(context));
+        var age = context.Request.Facts.AgeAt(context.Request.Now);
+        var adultFrom = context.Options.Severity.AdultFromAgeYears;
+        Write(detail, context.Request.Facts, sources, age < adultFrom ? [SafetyCautions.Paediatric(age.Value, adultFrom)] : []);
+    }
+
+    private static void Write(DetailWriter detail, PatientFacts facts, IEnumerable<string> sources, IReadOnlyList<string> requestCautions)
     {
         Guard.NotNull(detail, nameof(detail));
         Guard.NotNull(facts, nameof(facts));
@@ -36,7 +52,7 @@ public static class CardFooter
             "Data the service could not use",
             facts.Unavailable.OrderBy(kv => kv.Key, StringComparer.Ordinal).Select(kv => $"{Markdown.Escape(kv.Key)}: {Markdown.Escape(kv.Value)}"));
         detail.Bullets("Data notes", facts.DataNotes.Select(Markdown.Escape));
-        detail.Bullets(SafetyCautions.Heading, SafetyCautions.All);
+        detail.Bullets(SafetyCautions.Heading, [.. requestCautions, .. SafetyCautions.All]);
         detail.Bullets("Sources", sources);
     }
 }

@@ -68,8 +68,12 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
     {
         var thresholds = context.Thresholds;
         var labels = latest.IsPreliminary ? ", preliminary" : string.Empty;
-        var summary = Summary.Fit(Invariant.Format(
-            $"Sodium {Invariant.Number(latest.Value)} mmol/L ({thresholds.NameOf(band)} hyponatremia{labels}, {Invariant.ShortTime(latest.EffectiveAt)}) — {builder.SummaryAction ?? "review"}."));
+        // Tonicity decides the summary's opening: a hypertonic low sodium is "not hypotonic" first, never a low-sodium emergency.
+        var summary = Summary.Fit(builder.NotHypotonicEvidence is { } evidence
+            ? Invariant.Format(
+                $"Not hypotonic: sodium {Invariant.Number(latest.Value)} mmol/L ({thresholds.NameOf(band)} range{labels}, {Invariant.ShortTime(latest.EffectiveAt)}) with {evidence} — {builder.SummaryAction ?? "review"}.")
+            : Invariant.Format(
+                $"Sodium {Invariant.Number(latest.Value)} mmol/L ({thresholds.NameOf(band)} hyponatremia{labels}, {Invariant.ShortTime(latest.EffectiveAt)}) — {builder.SummaryAction ?? "review"}."));
 
         var detail = new DetailWriter()
             .Paragraph(Invariant.Format($"**Low sodium work-up** as of {Invariant.Time(context.Request.Now)}. Advisory only."))
@@ -77,12 +81,12 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
             .Numbered("Reasoning (with the data each step used)", builder.Steps)
             .Bullets("Possible causes to consider", builder.Differential)
             .Bullets("What clinicians usually consider next", builder.NextSteps);
-        CardFooter.Write(detail, context.Request.Facts, builder.Sources);
+        CardFooter.Write(detail, context, builder.Sources);
 
         return new Card
         {
             Summary = summary,
-            Indicator = builder.Indicator,
+            Indicator = builder.FinalIndicator,
             Detail = detail.ToString(),
             Topic = "sodium-assessment",
             RuleIds = [RuleId, .. builder.RuleIds],

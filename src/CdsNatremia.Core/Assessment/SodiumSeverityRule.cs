@@ -2,6 +2,7 @@ using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Sodium;
+using CdsNatremia.Core.Text;
 
 namespace CdsNatremia.Core.Assessment;
 
@@ -42,7 +43,7 @@ public sealed class SodiumSeverityRule : IAssessmentRule
         if (context.Sodium.LatestIsStale)
         {
             card.Steps.Add(Invariant.Format(
-                $"**Age of the result**: taken {Invariant.Number(age)} h before this assessment, older than the {Invariant.Number(context.Sodium.StaleAfterHours)} h window: **stale**; today's sodium may differ."));
+                $"**Age of the result**: taken {ClinicalNumber.Rounded(age, 1)} h before this assessment, older than the {Invariant.Number(context.Sodium.StaleAfterHours)} h window: **stale**; today's sodium may differ."));
             card.Suggest(LabOrders.AsSuggestion(LabOrders.SerumSodium("Latest sodium is stale; recheck before acting."), recommended: true));
             card.OfferSummaryAction(50, "result is stale, recheck sodium");
 

@@ -28,6 +28,13 @@ public static class SafetyCautions
         "Severe symptoms (vomiting, seizures, reduced consciousness, cardiorespiratory distress) are an emergency: " +
         "seek senior help at once.";
 
+    /// <summary>
+    /// The caution for a patient younger than the adult age (<see cref="Sodium.SeverityOptions.AdultFromAgeYears"/>): the
+    /// 2014 European guideline covers adults, so its thresholds and correction limits may not apply to a child.
+    /// </summary>
+    public static string Paediatric(int ageYears, int adultFromAgeYears) => Invariant.Format(
+        $"**This patient is a child ({ageYears} years old, under {adultFromAgeYears})**: the thresholds, correction limits and formulas on this card are for adults (the 2014 European guideline covers adults) and may not apply; follow paediatric protocols and seek paediatric advice.");
+
     /// <summary>All cautions in display order.</summary>
     public static IReadOnlyList<string> All { get; } = [AdvisoryOnly, LocalProtocols, CorrectionLimits, SevereSymptoms];
 }

@@ -55,6 +55,12 @@ public sealed record Allowance(CorrectionEpisode Episode, RateWindow Day, RateWi
             : allowance.Episode.Nadir.Value < context.Thresholds.NormalFrom;
     }
 
+    /// <summary>
+    /// The window in which the correction reached or passed its limit (now, or at a peak since re-lowered), or null. Used to
+    /// recognise a deliberate re-lowering after over-correction (desmopressin or water ordered under senior care).
+    /// </summary>
+    public RateWindow? Overcorrected => new[] { Day, TwoDays }.FirstOrDefault(w => w.Status == RateStatus.AtOrPast || w.PassedAt is not null);
+
     /// <summary>Lines for a card: where the correction stands and what is left.</summary>
     public IReadOnlyList<string> Describe(CorrectionRateOptions options)
     {

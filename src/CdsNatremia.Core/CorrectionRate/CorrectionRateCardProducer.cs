@@ -96,7 +96,7 @@ public sealed class CorrectionRateCardProducer : ICardProducer
 
         if (worst.ProjectedRise is { } projected)
         {
-            findings.Add(Invariant.Format($"If the current rate goes on, the rise would be {RateText.Mmol(projected)} by {Invariant.Time(worst.End)}."));
+            findings.Add(Invariant.Format($"If the current rate goes on, the rise would be {RateText.MmolRounded(projected)} by {Invariant.Time(worst.End)}."));
         }
 
         findings.Add(RateText.HighRisk(factors, limits));
@@ -115,7 +115,7 @@ public sealed class CorrectionRateCardProducer : ICardProducer
                 "Checking sodium again soon and often while the rise is this fast, at the interval local protocol sets.",
                 "The limits are for chronic hyponatremia (present 48 h or more, or of unknown duration; 2014 European guideline); where it is documented to be acute, the balance of risks differs, and a senior clinician weighs it.",
             ]);
-        CardFooter.Write(detail, context.Request.Facts, RateText.Sources(limits));
+        CardFooter.Write(detail, context, RateText.Sources(limits));
 
         // A stale latest result calls for a recheck first: at most a warning, never a critical interruption.
         var stale = context.Sodium.LatestIsStale;
@@ -201,14 +201,14 @@ public sealed class CorrectionRateCardProducer : ICardProducer
             .Numbered("Computation (with its inputs)",
             [
                 Invariant.Format($"Change = {Invariant.Number(latest.Value)} − {Invariant.Number(earlier.Value)} = {RateText.Mmol(change)} over {RateText.Hours(hours)} h."),
-                Invariant.Format($"Per 24 h = {RateText.Mmol(change)} / {RateText.Hours(hours)} h × 24 = {RateText.Mmol(perDay)}; minimum goal {RateText.Mmol(goal)} per day{(highRisk ? " (high risk)" : string.Empty)} ({Markdown.Escape(limits.Name)})."),
+                Invariant.Format($"Per 24 h = {RateText.Mmol(change)} / {RateText.Hours(hours)} h × 24 = {RateText.MmolRounded(perDay)}; minimum goal {RateText.Mmol(goal)} per day{(highRisk ? " (high risk)" : string.Empty)} ({Markdown.Escape(limits.Name)})."),
             ])
             .Bullets("Options clinicians usually discuss (with a senior clinician, under local protocol; not orders)",
             [
                 "Whether the current treatment matches the cause found by the work-up, and whether symptoms call for faster correction within the limits.",
                 "Checking sodium again at the interval local protocol sets.",
             ]);
-        CardFooter.Write(detail, context.Request.Facts, RateText.Sources(limits));
+        CardFooter.Write(detail, context, RateText.Sources(limits));
         return new Card
         {
             Summary = summary,

@@ -5,7 +5,10 @@ namespace CdsNatremia.Core.CorrectionRate;
 /// <param name="Name">The name a card prints, e.g. "sodium chloride 3%".</param>
 /// <param name="Sodium">Sodium, mmol/L (from <see cref="InfusionOptions"/>).</param>
 /// <param name="Potassium">Potassium, mmol/L (0 for plain saline).</param>
-public sealed record Infusate(InfusateKind Kind, string Name, double Sodium, double Potassium)
+/// <param name="Osmolality">Osmolality, mOsm/kg (taken as equal to osmolarity for these dilute solutions): for sodium
+/// chloride twice the sodium (sodium and chloride both count; 0.9% gives 308, the figure usually stated: from memory);
+/// for Ringer's lactate <see cref="InfusionOptions.RingersLactateOsmolality"/>.</param>
+public sealed record Infusate(InfusateKind Kind, string Name, double Sodium, double Potassium, double Osmolality)
 {
     /// <summary>The infusate for a kind, with the configured content.</summary>
     public static Infusate Of(InfusateKind kind, InfusionOptions options)
@@ -13,10 +16,10 @@ public sealed record Infusate(InfusateKind Kind, string Name, double Sodium, dou
         Guard.NotNull(options, nameof(options));
         return kind switch
         {
-            InfusateKind.Saline09 => new(kind, "sodium chloride 0.9%", options.Saline09Sodium, 0),
-            InfusateKind.Saline3 => new(kind, "sodium chloride 3%", options.Saline3Sodium, 0),
-            InfusateKind.Saline045 => new(kind, "sodium chloride 0.45%", options.Saline045Sodium, 0),
-            InfusateKind.RingersLactate => new(kind, "Ringer's lactate", options.RingersLactateSodium, options.RingersLactatePotassium),
+            InfusateKind.Saline09 => new(kind, "sodium chloride 0.9%", options.Saline09Sodium, 0, 2 * options.Saline09Sodium),
+            InfusateKind.Saline3 => new(kind, "sodium chloride 3%", options.Saline3Sodium, 0, 2 * options.Saline3Sodium),
+            InfusateKind.Saline045 => new(kind, "sodium chloride 0.45%", options.Saline045Sodium, 0, 2 * options.Saline045Sodium),
+            InfusateKind.RingersLactate => new(kind, "Ringer's lactate", options.RingersLactateSodium, options.RingersLactatePotassium, options.RingersLactateOsmolality),
             _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, null),
         };
     }

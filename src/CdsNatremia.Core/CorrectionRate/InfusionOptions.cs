@@ -29,6 +29,13 @@ public sealed class InfusionOptions
     [Range(0, 20)]
     public double RingersLactatePotassium { get; set; } = 4;
 
+    /// <summary>
+    /// Osmolality of Ringer's lactate, mOsm/kg, for the comparison with urine osmolality (desalination check). Default 273
+    /// (from memory: the usual stated osmolarity; not on the reference sheet). Sodium chloride solutions use twice their sodium.
+    /// </summary>
+    [Range(200, 350)]
+    public double RingersLactateOsmolality { get; set; } = 273;
+
     /// <summary>Total body water fraction for children and men under <see cref="OlderFromAge"/>. Default 0.6 (reference sheet, secondary).</summary>
     [Range(0.3, 0.8)]
     public double WaterFractionChildOrYoungerMan { get; set; } = 0.6;

@@ -77,7 +77,7 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
             water = BodyWater.Estimate(weight.Value, facts.Sex, age, options);
             used.Add(weight.Reference);
             steps.Add(Invariant.Format(
-                $"**Total body water** = weight {Invariant.Number(weight.Value)} kg ({Markdown.Escape(weight.Reference)}, {Invariant.Time(weight.EffectiveAt)}) × {Invariant.Number(water.Fraction)} ({water.Why}) = **{Invariant.Number(Math.Round(water.Litres, 1))} L**."));
+                $"**Total body water** = weight {Invariant.Number(weight.Value)} kg ({Markdown.Escape(weight.Reference)}, {Invariant.Time(weight.EffectiveAt)}) × {Invariant.Number(water.Fraction)} ({water.Why}) = **{Invariant.Number(water.Litres)} L**."));
         }
         else
         {
@@ -132,13 +132,13 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
                 var example = BodyWater.Estimate(options.ExampleWeightKg, facts.Sex, age, options);
                 var examplePerLitre = AdrogueMadias.ChangePerLitre(infusate.Sodium, infusate.Potassium, serum.Value, example.Litres);
                 steps.Add(head + Invariant.Format(
-                    $". *Example only, not this patient's weight*: for an example weight of {Invariant.Number(options.ExampleWeightKg)} kg (water {Invariant.Number(example.Fraction)} × {Invariant.Number(options.ExampleWeightKg)} = {Invariant.Number(Math.Round(example.Litres, 1))} L), one litre would change sodium by ({Invariant.Number(infusate.Sodium)} + {Invariant.Number(infusate.Potassium)} − {Invariant.Number(serum.Value)}) / ({Invariant.Number(Math.Round(example.Litres, 1))} + 1) = {Signed(examplePerLitre)} mmol/L. A lighter patient would change more."));
+                    $". *Example only, not this patient's weight*: for an example weight of {Invariant.Number(options.ExampleWeightKg)} kg (water {Invariant.Number(example.Fraction)} × {Invariant.Number(options.ExampleWeightKg)} = {Invariant.Number(example.Litres)} L), one litre would change sodium by ({Invariant.Number(infusate.Sodium)} + {Invariant.Number(infusate.Potassium)} − {Invariant.Number(serum.Value)}) / ({Invariant.Number(example.Litres)} + 1) = {Signed(examplePerLitre)} mmol/L. A lighter patient would change more."));
                 continue;
             }
 
             var perLitre = AdrogueMadias.ChangePerLitre(infusate.Sodium, infusate.Potassium, serum.Value, water.Litres);
             var text = head + Invariant.Format(
-                $". **Per litre** = ({Invariant.Number(infusate.Sodium)} + {Invariant.Number(infusate.Potassium)} − {Invariant.Number(serum.Value)}) / ({Invariant.Number(Math.Round(water.Litres, 1))} + 1) = **{Signed(perLitre)} mmol/L**");
+                $". **Per litre** = ({Invariant.Number(infusate.Sodium)} + {Invariant.Number(infusate.Potassium)} − {Invariant.Number(serum.Value)}) / ({Invariant.Number(water.Litres)} + 1) = **{Signed(perLitre)} mmol/L**");
             if (millilitres is { } ordered)
             {
                 var change = AdrogueMadias.ChangeForVolume(perLitre, ordered);
@@ -155,6 +155,7 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
             steps.Add(text + ".");
         }
 
+        var mayFall = CompareUrine(context, orders, serum, findings, used);
         var indicator = CardIndicator.Info;
         string verdict;
         if (allowance is not null && predictedAny)
@@ -199,10 +200,21 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
             indicator = CardIndicator.Warning;
         }
 
+        if (mayFall && indicator != CardIndicator.Critical)
+        {
+            // Desalination (Steele et al. 1997): the prediction's sign cannot be trusted, so its verdict is not given.
+            indicator = CardIndicator.Warning;
+            verdict = "urine more concentrated than the fluid: sodium may fall";
+        }
+
         var first = orders[0].Recognition.Infusate?.Name ?? "sodium chloride";
-        var summary = Summary.Fit(predictedAny
-            ? Invariant.Format($"{Capital(first)} order: predicted sodium change {Signed(total)} mmol/L; {verdict}.")
-            : Invariant.Format($"{Capital(first)} order: {verdict} (see detail)."));
+        var summary = Summary.Fit(mayFall && indicator != CardIndicator.Critical
+            ? predictedAny
+                ? Invariant.Format($"{Capital(first)} order: urine more concentrated than the fluid, so sodium may fall; the predicted {Signed(total)} mmol/L does not hold.")
+                : Invariant.Format($"{Capital(first)} order: urine more concentrated than the fluid, so sodium may fall (see detail).")
+            : predictedAny
+                ? Invariant.Format($"{Capital(first)} order: predicted sodium change {Signed(total)} mmol/L; {verdict}.")
+                : Invariant.Format($"{Capital(first)} order: {verdict} (see detail)."));
 
         var detail = new DetailWriter()
             .Paragraph(Invariant.Format($"**Infusion effect prediction** as of {Invariant.Time(context.Request.Now)} (Adrogué–Madias formula). Advisory only."))
@@ -215,9 +227,10 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
                 "Checking sodium after the infusion, or during it for hypertonic saline, at the interval local protocol sets.",
                 "Whether the ordered volume and rate fit the correction limits; discuss with a senior clinician when the prediction is near or above the allowance.",
             ]);
-        CardFooter.Write(detail, facts,
+        CardFooter.Write(detail, context,
         [
             "Adrogué–Madias formula (Adrogué & Madias, N Engl J Med 2000;342:1581); total body water fractions and infusate sodium as on the project reference sheet (secondary sources).",
+            "Sodium falling on near-isotonic saline when the urine is more concentrated than the fluid (desalination): " + UrineVersusInfusate.Source + ".",
             .. allowance is null ? [] : RateText.Sources(allowance.Limits),
         ]);
 
@@ -230,6 +243,35 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
             RuleIds = [RuleId],
             ResourcesUsed = used.Distinct(StringComparer.Ordinal).ToList(),
         };
+    }
+
+    /// <summary>
+    /// Compares the urine with each ordered fluid (<see cref="UrineVersusInfusate"/>) and adds what it found; true when for
+    /// some fluid the urine is more concentrated, so the predicted rise does not hold and sodium may fall. Without urine data
+    /// the card says that the prediction assumes no urine losses.
+    /// </summary>
+    private static bool CompareUrine(DecisionContext context, List<(MedicationFact Order, InfusateRecognition Recognition)> orders, LabResult? serum, List<string> findings, List<string> used)
+    {
+        var urine = UrineVersusInfusate.Find(context, serum?.EffectiveAt ?? context.Request.Now);
+        if (!urine.HasData)
+        {
+            findings.Add("**The prediction assumes no urine losses.** No recent urine osmolality or urine sodium was found to check it: if the urine is more concentrated than the fluid (urine osmolality above the fluid's, or urine sodium + potassium above the fluid's sodium + potassium), sodium can fall instead of rising (desalination, Steele et al. 1997). Urine osmolality, sodium and potassium settle it.");
+            return false;
+        }
+
+        used.AddRange(new[] { urine.Osmolality, urine.Sodium, urine.Potassium }.OfType<LabResult>().Select(r => r.Reference));
+        var mayFall = false;
+        foreach (var infusate in orders.Select(o => o.Recognition.Infusate).OfType<Infusate>().DistinctBy(i => i.Kind))
+        {
+            var (fall, lines) = urine.Compare(infusate);
+            mayFall |= fall;
+            var compared = string.Join("; ", lines);
+            findings.Add(fall
+                ? Invariant.Format($"**The prediction does not hold for {infusate.Name}: sodium may fall.** The urine is more concentrated than the fluid: {compared}. The kidney excretes the fluid's salt in less water than came with it and keeps the rest as free water (desalination, Steele et al. 1997).")
+                : Invariant.Format($"Urine compared with {infusate.Name}: {compared}. The urine is not more concentrated than the fluid, so the predicted direction holds; urine losses still change the size of the change."));
+        }
+
+        return mayFall;
     }
 
     private static string Signed(double value)

@@ -7,7 +7,11 @@ internal static class RateText
 {
     public static string Hours(double hours) => Invariant.Number(Math.Round(hours, 1));
 
-    public static string Mmol(double value) => Invariant.Number(Math.Round(value, 1)) + " mmol/L";
+    /// <summary>A limit, an input or a difference of inputs, printed as used (<see cref="ClinicalNumber"/>).</summary>
+    public static string Mmol(double value) => ClinicalNumber.Format(value) + " mmol/L";
+
+    /// <summary>A derived estimate (a projection, a rate per day), rounded to one decimal as a result.</summary>
+    public static string MmolRounded(double value) => ClinicalNumber.Rounded(value, 1) + " mmol/L";
 
     public static string Status(RateStatus status) => status switch
     {
@@ -56,7 +60,7 @@ internal static class RateText
             var rate = w.Rise / w.ElapsedHours;
             var toEnd = (w.End - w.Latest.EffectiveAt).TotalHours;
             text += Invariant.Format(
-                $". Projection: {Invariant.Number(Math.Round(rate, 2))} mmol/L per h ({Mmol(w.Rise)} / {Hours(w.ElapsedHours)} h) × {Hours(toEnd)} h to the window's end + {Mmol(w.Rise)} = **{Mmol(projected)}** by {Invariant.Time(w.End)} if the current rate goes on");
+                $". Projection: {Invariant.Number(Math.Round(rate, 2))} mmol/L per h ({Mmol(w.Rise)} / {Hours(w.ElapsedHours)} h) × {Hours(toEnd)} h to the window's end + {Mmol(w.Rise)} = **{MmolRounded(projected)}** by {Invariant.Time(w.End)} if the current rate goes on");
         }
 
         if (w.MixedSpecimens)

@@ -47,12 +47,21 @@ public sealed class DrugCauseRule : IAssessmentRule
             card.ResourcesUsed.Add(fall.FirstLow.Reference);
         }
 
+        var heartFailure = HeartFailureTreatment.HeartFailure(context);
         foreach (var drug in implicated)
         {
             card.ResourcesUsed.Add(drug.Medication.Reference);
-            card.Steps.Add(Step(drug));
-            card.Differential.Add(Invariant.Format($"Medicine effect: {DrugText.Name(drug.Match)} ({Markdown.Escape(drug.Match.Set.Label)}), {drug.Timing.VerdictText} by timing."));
-            if (drug.Counts)
+            var treatment = HeartFailureTreatment.IsTreatment(drug.Match, heartFailure);
+            var inHeartFailure = treatment ? $" It treats the patient's {HeartFailureTreatment.Cite(heartFailure!)}: part of that treatment, not stopped for the sodium." : string.Empty;
+            card.Steps.Add(Step(drug) + inHeartFailure);
+            card.Differential.Add(Invariant.Format(
+                $"Medicine effect: {DrugText.Name(drug.Match)} ({Markdown.Escape(drug.Match.Set.Label)}), {drug.Timing.VerdictText} by timing{(treatment ? "; here part of heart-failure treatment" : string.Empty)}."));
+            if (treatment)
+            {
+                card.ResourcesUsed.Add(heartFailure!.Reference);
+                card.NextSteps.Add(HeartFailureTreatment.Considerations(drug.Match, heartFailure));
+            }
+            else if (drug.Counts)
             {
                 card.NextSteps.Add(DrugText.Considerations(drug.Match));
             }
@@ -72,7 +81,7 @@ public sealed class DrugCauseRule : IAssessmentRule
             card.Findings.Add($"**Medicines acting together**: {names}; their effects on sodium add up (common practice).");
         }
 
-        if (likely.FirstOrDefault(d => d.IsPrimary) is { } first)
+        if (likely.FirstOrDefault(d => d.IsPrimary && !HeartFailureTreatment.IsTreatment(d.Match, heartFailure)) is { } first)
         {
             card.OfferSummaryAction(30, $"review {first.Match.Ingredient}, a likely cause");
         }

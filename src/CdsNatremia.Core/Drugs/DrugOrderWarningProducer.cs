@@ -1,5 +1,6 @@
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Cards;
+using CdsNatremia.Core.CorrectionRate;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Knowledge;
@@ -17,6 +18,9 @@ namespace CdsNatremia.Core.Drugs;
 /// </summary>
 public sealed class DrugOrderWarningProducer : ICardProducer
 {
+    /// <summary>The desmopressin set's id: it lowers sodium, and its card says so (one card per order).</summary>
+    public const string DesmopressinSetId = "drug-desmopressin";
+
     /// <summary>Our override-reason code system's id in the knowledge base.</summary>
     public const string OverrideReasonSystemId = "override-reason";
 
@@ -61,6 +65,25 @@ public sealed class DrugOrderWarningProducer : ICardProducer
             .ToList();
     }
 
+    /// <summary>
+    /// True when this producer gives a card for <paramref name="draft"/> (it is in a warned drug group and the sodium gives a
+    /// reason). Other producers ask it so that one order gets one card, not two (desmopressin: <see cref="CorrectionRate.RateCautionOrderCardProducer"/>).
+    /// </summary>
+    public static bool Warns(DecisionContext context, MedicationFact draft)
+    {
+        Guard.NotNull(context, nameof(context));
+        Guard.NotNull(draft, nameof(draft));
+        var options = context.Options.DrugCause;
+        var sets = DrugCauseSets.Causes(context.Knowledge).Where(s => options.WarnOnSecondaryTier || s.Tier == EvidenceTier.Primary).ToList();
+        if (!MedicationMatching.MatchAll(sets, draft).Any())
+        {
+            return false;
+        }
+
+        var request = context.Request;
+        return OrderWarningReason.Decide(context.Sodium.Results, context.Thresholds.NormalFrom, options, request.Now, request.Facts.AgeAt(request.Now)) is not null;
+    }
+
     private static bool IsSelected(MedicationFact draft, IReadOnlyList<string> selections)
         => selections.Any(s => string.Equals(s, draft.Reference, StringComparison.Ordinal)
             || s.EndsWith("/" + draft.Reference, StringComparison.Ordinal));
@@ -91,6 +114,14 @@ public sealed class DrugOrderWarningProducer : ICardProducer
 
         findings.Add(ReasonLine(reason, thresholds, options, used));
 
+        var relowering = string.Equals(main.Set.Id, DesmopressinSetId, StringComparison.Ordinal)
+            ? Allowance.For(context)?.Overcorrected
+            : null;
+        if (relowering is not null)
+        {
+            findings.Add(RateCautionOrderCardProducer.ReloweringText(relowering));
+        }
+
         var sameDrug = existing.Where(e => matches.Any(m => m.Set.Id == e.Match.Set.Id
             && string.Equals(m.Ingredient, e.Match.Ingredient, StringComparison.OrdinalIgnoreCase))).ToList();
         foreach (var drug in sameDrug)
@@ -113,38 +144,55 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         }
 
         var recheck = Invariant.Format($"within {Duration(recheckHours)}");
-        var consider = new List<string>
+        var heartFailure = HeartFailureTreatment.HeartFailure(context);
+        var treatment = HeartFailureTreatment.IsTreatment(main, heartFailure);
+        if (treatment)
         {
-            DrugText.ConsiderationsBeforeStarting(main),
-            $"If it is kept, clinicians usually recheck sodium {recheck} of starting it, and sooner if symptoms appear (common practice).",
-            "The choices below are offered, at most one: remove this draft order, or keep it and add a sodium recheck.",
-        };
+            used.Add(heartFailure!.Reference);
+        }
+
+        var consider = treatment
+            ? new List<string>
+            {
+                HeartFailureTreatment.Considerations(main, heartFailure!),
+                $"Clinicians usually recheck sodium {recheck} of a change in the diuretic, and sooner if symptoms appear (common practice).",
+                "The choice below adds a sodium recheck; removing the order is not offered, since the diuretic treats the heart failure.",
+            }
+            : new List<string>
+            {
+                DrugText.ConsiderationsBeforeStarting(main),
+                $"If it is kept, clinicians usually recheck sodium {recheck} of starting it, and sooner if symptoms appear (common practice).",
+                "The choices below are offered, at most one: remove this draft order, or keep it and add a sodium recheck.",
+            };
 
         var detail = new DetailWriter()
             .Paragraph(Invariant.Format($"**A medicine that can lower sodium is being ordered**, as of {Invariant.Time(context.Request.Now)}. Advisory only."))
             .Bullets("Findings", findings)
             .Bullets("What clinicians usually consider", consider);
-        CardFooter.Write(detail, context.Request.Facts, [
+        CardFooter.Write(detail, context, [
             "Drug groups and codes: CdsNatremia knowledge files (profiles/valuesets; each code's source is listed in its file)",
             thresholds.Source,
         ]);
 
         var name = main.Ingredient;
         var removeLabel = $"Remove the draft {name} order";
-        var suggestions = new List<Suggestion>
+        var suggestions = new List<Suggestion>();
+        if (!treatment)
         {
-            new(removeLabel, [SuggestedAction.Remove(draft.Reference, $"Remove the draft order {draft.Reference} ({name}).")], null, "remove-draft-" + draft.ResourceId),
+            suggestions.Add(new(removeLabel, [SuggestedAction.Remove(draft.Reference, $"Remove the draft order {draft.Reference} ({name}).")], null, "remove-draft-" + draft.ResourceId));
+        }
+
+        suggestions.Add(
             new(
                 Invariant.Format($"Keep the {name} order and recheck sodium {recheck}"),
                 [SuggestedAction.Order(LabOrders.SerumSodium(Invariant.Format($"{name} can lower sodium; recheck {recheck} of starting it."), recheckHours))],
                 null,
-                "keep-and-recheck-sodium-" + draft.ResourceId),
-        };
+                "keep-and-recheck-sodium-" + draft.ResourceId));
 
         return new Card
         {
             Summary = Summary.Fit(SummaryText(main, reason, band, thresholds, options)),
-            Indicator = profound ? CardIndicator.Critical : CardIndicator.Warning,
+            Indicator = profound && relowering is null ? CardIndicator.Critical : CardIndicator.Warning,
             Detail = detail.ToString(),
             Topic = "drug-order-warning",
             RuleIds = [RuleId],

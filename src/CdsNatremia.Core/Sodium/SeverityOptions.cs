@@ -34,6 +34,14 @@ public sealed class SeverityOptions
     /// <summary>The word cards use for the lowest band. Default "profound" (2014 European guideline); the older preset says "severe".</summary>
     public string LowestBandName { get; set; } = "profound";
 
+    /// <summary>
+    /// Age in years from which the patient is an adult. Below it, every card that gives thresholds or correction limits says
+    /// that these are adult values that may not apply and defers to paediatric protocols. Default 18: the 2014 European
+    /// guideline covers adults (Spasovski et al. 2014, its stated scope), and 18 is the usual age of adulthood (common practice).
+    /// </summary>
+    [Range(1, 30)]
+    public int AdultFromAgeYears { get; set; } = 18;
+
     /// <summary>Citation shown on cards for the band thresholds.</summary>
     public string Source { get; set; } = "2014 European clinical practice guideline on hyponatraemia (Spasovski et al., Eur J Endocrinol 2014;170:G1)";
 

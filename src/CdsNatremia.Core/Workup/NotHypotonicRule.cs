@@ -1,6 +1,7 @@
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Text;
 
 namespace CdsNatremia.Core.Workup;
 
@@ -43,7 +44,12 @@ public sealed class NotHypotonicRule : IAssessmentRule
         else if (t.Band == Tonicity.Hypertonic && !t.GlucoseIsHigh)
         {
             spoke = true;
-            OtherOsmoles(t, card);
+            OtherOsmoles(context, t, card);
+        }
+        else if (t.Band == Tonicity.Unknown && OsmoleAgents.InRecord(context.Request.Facts) is { Count: > 0 } agents)
+        {
+            spoke = true;
+            OsmoleWithoutOsmolality(agents, card);
         }
 
         if (spoke)
@@ -74,11 +80,12 @@ public sealed class NotHypotonicRule : IAssessmentRule
 
         if (t.Band == Tonicity.Hypertonic)
         {
-            card.Findings.Add("This is **not hypotonic hyponatremia**: glucose holds water outside the cells and dilutes the sodium.");
+            card.MarkNotHypotonic(Invariant.Format($"glucose {ClinicalNumber.Rounded(t.Glucose.Value, 1)} mmol/L"));
+            card.Findings.Insert(0, "This is **not hypotonic hyponatremia**: glucose holds water outside the cells and dilutes the sodium. The correction limits of hypotonic hyponatremia do not apply to this dilution.");
             card.NextSteps.Add(Invariant.Format(
                 $"Treat the hyperglycaemia and any volume deficit rather than the sodium (no treatment for the dilution itself); the sodium rises as glucose falls, towards the corrected value of about {Invariant.Number(chosen)} mmol/L, so recheck sodium and glucose together."));
             card.Differential.Add("Hyperglycaemia (translocational, hypertonic hyponatremia).");
-            card.OfferSummaryAction(SummaryPriority, Invariant.Format($"hypertonic from glucose; corrected sodium {Invariant.Number(chosen)} mmol/L ({chosenName})"));
+            card.OfferSummaryAction(SummaryPriority, Invariant.Format($"corrected sodium {Invariant.Number(chosen)} mmol/L ({chosenName})"));
         }
         else
         {
@@ -158,17 +165,50 @@ public sealed class NotHypotonicRule : IAssessmentRule
         card.OfferSummaryAction(SummaryPriority, "normal osmolality: possible artefact, check a direct-ISE (blood-gas) sodium");
     }
 
-    private static void OtherOsmoles(TonicityAssessment t, AssessmentBuilder card)
+    private static void OtherOsmoles(DecisionContext context, TonicityAssessment t, AssessmentBuilder card)
     {
         var glucose = t.Glucose is null
             ? "glucose is not available, so hyperglycaemia is not excluded"
             : Invariant.Format($"glucose is not high ({Cite.Result(t.Glucose)})");
+        var agents = OsmoleAgents.InRecord(context.Request.Facts);
+        foreach (var (medication, _) in agents)
+        {
+            card.ResourcesUsed.Add(medication.Reference);
+        }
+
+        var named = agents.Count == 0
+            ? "No such agent is in the medication record received."
+            : "**In the record**: " + string.Join("; ", agents.Select(a => $"{a.Label} ({Markdown.Escape(a.Medication.Reference)}{Describe(a.Medication)})")) + ": the likely osmole.";
+        var osmolality = Invariant.Format($"{(t.Method == OsmolalityMethod.Measured ? "osmolality" : "calculated osmolality")} {Invariant.Number(t.Total!.Value)} mOsm/kg");
+        var likely = agents.Count == 0 ? null : string.Join(" or ", agents.Select(a => a.Label).Distinct(StringComparer.Ordinal));
         card.Sources.Add(WorkupSources.CommonPractice);
+        card.MarkNotHypotonic(osmolality);
         card.Steps.Add(Invariant.Format(
-            $"**High osmolality without high glucose**: {glucose}. Other osmoles that draw water out of cells and lower the sodium: **mannitol**, **glycine or sorbitol** irrigation fluid, **radiocontrast**, and, for the osmolality but not the tonicity, alcohols (ethanol, methanol, ethylene glycol) and a high urea."));
-        card.Findings.Add("This is **not hypotonic hyponatremia**: the serum osmolality is high; look for another osmole.");
+            $"**High osmolality without high glucose**: {glucose}. Other osmoles that draw water out of cells and lower the sodium: **mannitol**, **glycine or sorbitol** irrigation fluid, **radiocontrast**, and, for the osmolality but not the tonicity, alcohols (ethanol, methanol, ethylene glycol) and a high urea. {named}"));
+        card.Findings.Insert(0, likely is null
+            ? Invariant.Format($"This is **not hypotonic hyponatremia** ({osmolality}): look for another osmole. The correction limits of hypotonic hyponatremia do not apply.")
+            : Invariant.Format($"This is **not hypotonic hyponatremia** ({osmolality}): the likely osmole is **{likely}**, in the record. The correction limits of hypotonic hyponatremia do not apply."));
         card.Differential.Add("Hypertonic hyponatremia from mannitol, irrigation fluids or contrast; raised osmolality from alcohols or urea.");
         card.NextSteps.Add("Review recent infusions, surgery with irrigation, contrast studies and alcohol or toxic-alcohol exposure; treat the cause rather than the sodium.");
-        card.OfferSummaryAction(SummaryPriority, "high osmolality without high glucose: look for other osmoles");
+        card.OfferSummaryAction(SummaryPriority, likely is null
+            ? "look for another osmole; treat the cause"
+            : Invariant.Format($"likely {likely}; treat the cause"));
     }
+
+    private static void OsmoleWithoutOsmolality(IReadOnlyList<(MedicationFact Medication, string Label)> agents, AssessmentBuilder card)
+    {
+        foreach (var (medication, _) in agents)
+        {
+            card.ResourcesUsed.Add(medication.Reference);
+        }
+
+        var listed = string.Join("; ", agents.Select(a => $"{a.Label} ({Markdown.Escape(a.Medication.Reference)}{Describe(a.Medication)})"));
+        card.Sources.Add(WorkupSources.CommonPractice);
+        card.Steps.Add($"**An osmole is in the record** ({listed}) and the tonicity is unknown: the low sodium may be hypertonic or isotonic rather than hypotonic. A measured serum osmolality settles it before the sodium is treated.");
+        card.Findings.Add($"Possible osmole in the record: {listed}; the low sodium may not be hypotonic (measure serum osmolality).");
+        card.OfferSummaryAction(SummaryPriority, Invariant.Format($"{agents[0].Label} in the record: measure osmolality before treating"));
+    }
+
+    private static string Describe(MedicationFact medication)
+        => string.IsNullOrWhiteSpace(medication.Text) ? string.Empty : ", \"" + Markdown.Escape(medication.Text) + "\"";
 }

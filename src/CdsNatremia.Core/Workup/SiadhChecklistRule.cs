@@ -48,7 +48,7 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         if (notMet == 0 && unknown == 0)
         {
             card.Findings.Add("SIADH essential criteria met on the data (euvolaemia to be confirmed by the clinician).");
-            card.NextSteps.Add("If SIADH is confirmed, fluid restriction is the usual first step; look for its cause (drugs, lung or intracranial disease, cancer, pain, nausea) and keep the correction within the limits.");
+            card.NextSteps.Add("If SIADH is confirmed, " + FurstRatio.RestrictionClause(context) + "; look for its cause (drugs, lung or intracranial disease, cancer, pain, nausea) and keep the correction within the limits.");
         }
     }
 

@@ -47,8 +47,11 @@ public sealed record TonicityAssessment
     /// <summary>True when glucose and urea nitrogen were both reported in mg/dL, so the card shows the US-unit form.</summary>
     public bool ReportedInUsUnits { get; init; }
 
-    /// <summary>Glucose in mg/dL (from the canonical value × 18.016), or null.</summary>
-    public double? GlucoseMgPerDl => Glucose is null ? null : OsmolalityFormulas.GlucoseToMgPerDl(Glucose.Value);
+    /// <summary>
+    /// Glucose in mg/dL (from the canonical value × 18.016), rounded to one decimal: the value the corrections use is the
+    /// value the card shows (<see cref="Text.ClinicalNumber"/>). Null without glucose.
+    /// </summary>
+    public double? GlucoseMgPerDl => Glucose is null ? null : Shown(OsmolalityFormulas.GlucoseToMgPerDl(Glucose.Value));
 
     /// <summary>True when the paired glucose is at or above <see cref="WorkupOptions.HighGlucoseFrom"/>.</summary>
     public bool GlucoseIsHigh { get; init; }
@@ -74,8 +77,9 @@ public sealed record TonicityAssessment
     {
         Guard.NotNull(sodium, nameof(sodium));
         Guard.NotNull(options, nameof(options));
-        double? calculatedEffective = glucose is null ? null : (2 * sodium.Value) + glucose.Value;
-        double? calculated = glucose is null || urea is null ? null : OsmolalityFormulas.CalculatedSi(sodium.Value, glucose.Value, urea.Value);
+        // Computed osmolalities are rounded to one decimal once, here: the band and the gap rest on the values the card shows.
+        double? calculatedEffective = glucose is null ? null : Shown((2 * sodium.Value) + glucose.Value);
+        double? calculated = glucose is null || urea is null ? null : Shown(OsmolalityFormulas.CalculatedSi(sodium.Value, glucose.Value, urea.Value));
 
         double? effective;
         double? total;
@@ -84,7 +88,7 @@ public sealed record TonicityAssessment
         {
             method = OsmolalityMethod.Measured;
             total = measured.Value;
-            effective = urea is null ? measured.Value : OsmolalityFormulas.Effective(measured.Value, urea.Value);
+            effective = urea is null ? measured.Value : Shown(OsmolalityFormulas.Effective(measured.Value, urea.Value));
         }
         else if (calculatedEffective is not null)
         {
@@ -100,7 +104,7 @@ public sealed record TonicityAssessment
         }
 
         var band = Classify(effective, total, options);
-        double? gap = measured is not null && calculated is not null ? OsmolalityFormulas.OsmolalGap(measured.Value, calculated.Value) : null;
+        double? gap = measured is not null && calculated is not null ? Shown(OsmolalityFormulas.OsmolalGap(measured.Value, calculated.Value)) : null;
         return new TonicityAssessment
         {
             Sodium = sodium,
@@ -157,6 +161,9 @@ public sealed record TonicityAssessment
 
     /// <summary>The result cited with unit, time and reference, or "not available".</summary>
     public static string CiteOrMissing(LabResult? result, string what) => result is null ? what + " not available" : Cite.Result(result);
+
+    /// <summary>A computed value as cards show it and rules use it: one decimal, half away from zero.</summary>
+    private static double Shown(double value) => Math.Round(value, 1, MidpointRounding.AwayFromZero);
 
     private static bool IsMgPerDl(LabResult? result)
         => result?.OriginalValue is not null && result.OriginalUnit is { } unit && string.Equals(unit.Trim(), "mg/dL", StringComparison.OrdinalIgnoreCase);

@@ -100,6 +100,20 @@ public sealed class WorkupOptions
     [Range(1, 24 * 30)]
     public double UrineUsableBeforeSodiumHours { get; set; } = 72;
 
+    /// <summary>
+    /// A Furst ratio, (urine sodium + urine potassium) / serum sodium, above this means fluid restriction is unlikely to
+    /// work. Default 1 (Furst et al., Am J Med Sci 2000;319:240; reference sheet, secondary; the bands are from memory).
+    /// </summary>
+    [Range(0.1, 3)]
+    public double FurstRestrictionUnlikelyAbove { get; set; } = 1;
+
+    /// <summary>
+    /// A Furst ratio from this up to <see cref="FurstRestrictionUnlikelyAbove"/> calls for a stricter fluid restriction; below
+    /// it the usual restriction can be expected to work. Default 0.5 (same source; bands from memory).
+    /// </summary>
+    [Range(0.1, 3)]
+    public double FurstStricterRestrictionFrom { get; set; } = 0.5;
+
     /// <summary>TSH and cortisol older than this many days are treated as missing, d. Default 30 (common practice).</summary>
     [Range(1, 365)]
     public double EndocrineTestMaxAgeDays { get; set; } = 30;

@@ -73,7 +73,9 @@ public class WorkupRulesTests
     {
         var card = Card(Facts([Some.Sodium(128), Lab(Analyte.SerumOsmolality, 310), Lab(Analyte.Glucose, 5.5), Lab(Analyte.Urea, 5)]));
         Assert.Contains("**mannitol**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("look for other osmoles", card.Summary, StringComparison.Ordinal);
+        // Issue 13 (11): a hypertonic low sodium opens with "Not hypotonic" and asks for another osmole (common practice).
+        Assert.StartsWith("Not hypotonic: sodium 128 mmol/L (moderate range", card.Summary, StringComparison.Ordinal);
+        Assert.Contains("look for another osmole", card.Summary, StringComparison.Ordinal);
     }
 
     [Fact]

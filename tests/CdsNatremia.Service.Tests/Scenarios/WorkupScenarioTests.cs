@@ -16,7 +16,7 @@ public partial class WorkupScenarioTests(NatremiaFactory factory) : IClassFixtur
     [InlineData("04", new[] { "**consistent with SIADH**", "pneumonia or chest infection", "(5) Normal thyroid function: **met**", "(6) Normal adrenal function: **met**" })]
     [InlineData("05", new[] { "**hypertonic**", "not hypotonic hyponatremia", "Katz", "Hillier" })]
     [InlineData("06", new[] { "**isotonic**", "**pseudohyponatremia** with very high triglycerides", "no sodium treatment is indicated", "reported as 3500 mg/dL" })]
-    [InlineData("07", new[] { "**hypotonic**", "279 − urea 17.1 = 261.9 mOsm/kg", "**taken while a diuretic was in use**", "heart failure (Condition/s07-hf", "**low effective arterial blood volume**" })]
+    [InlineData("07", new[] { "**hypotonic**", "279 − urea 17.134 = 261.9 mOsm/kg" /* urea nitrogen 48 mg/dL ÷ 2.8014, printed as used (issue 13, point 15) */, "**taken while a diuretic was in use**", "heart failure (Condition/s07-hf", "**low effective arterial blood volume**" })]
     [InlineData("08", new[] { "cirrhosis", "**low effective arterial blood volume**", "If **high volume**" })]
     [InlineData("09", new[] { "vomiting or nausea (Condition/s09-vom", "**low effective arterial blood volume**" })]
     [InlineData("10", new[] { "**relative excess water intake**", "does not steer the reasoning" })]
@@ -108,11 +108,15 @@ public partial class WorkupScenarioTests(NatremiaFactory factory) : IClassFixtur
 
         Assert.Equal((string?)usCard["summary"], (string?)siCard["summary"]);
         Assert.Equal((string?)usCard["indicator"], (string?)siCard["indicator"]);
-        foreach (var text in new[] { "→ **hypertonic**", "**136.8 mmol/L**", "**141.2 mmol/L**", "**Osmolal gap** 2.9 mOsm/kg", "305 − urea 10 = 295 mOsm/kg" })
+        foreach (var text in new[] { "→ **hypertonic**", "**136.8 mmol/L**", "**141.2 mmol/L**", "**Osmolal gap** 2.9 mOsm/kg", "= 295 mOsm/kg" })
         {
             Assert.Contains(text, (string)usCard["detail"]!, StringComparison.Ordinal);
             Assert.Contains(text, (string)siCard["detail"]!, StringComparison.Ordinal);
         }
+
+        // Each input printed as used (issue 13, point 15): 28 mg/dL ÷ 2.8014 = 9.995 mmol/L urea; SI urea 10.
+        Assert.Contains("305 − urea 9.995 = 295 mOsm/kg", (string)usCard["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("305 − urea 10 = 295 mOsm/kg", (string)siCard["detail"]!, StringComparison.Ordinal);
     }
 
     [Fact]
