@@ -17,6 +17,21 @@ public class ImperfectDataHookTests(NatremiaFactory factory) : IClassFixture<Nat
 
     private Task<JsonArray> RunAsync(string id) => HookCalls.RunAsync(factory.CreateClient(), ScenarioLibrary.Find(id)!);
 
+    [Theory]
+    [InlineData("25")]
+    [InlineData("26")]
+    [InlineData("27")]
+    [InlineData("28")]
+    [InlineData("29")]
+    [InlineData("30")]
+    public async Task ImperfectDataScenario_EveryManifestMentionOnTheCards(string id)
+    {
+        var scenario = ScenarioLibrary.Find(id)!;
+        var text = Text(await HookCalls.RunAsync(factory.CreateClient(), scenario));
+        Assert.NotEmpty(scenario.ExpectedMentions);
+        Assert.All(scenario.ExpectedMentions, m => Assert.Contains(m, text, StringComparison.OrdinalIgnoreCase));
+    }
+
     // Defect 1. Before: the bound was set aside, "no assessment" and the value printed as "LessThan100".
     [Fact]
     public async Task ChartReview_NewestSodiumBelow100_ProfoundCriticalPrintedAsBoundNoRate()
