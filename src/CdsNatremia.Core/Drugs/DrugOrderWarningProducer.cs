@@ -74,13 +74,18 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         Guard.NotNull(context, nameof(context));
         Guard.NotNull(draft, nameof(draft));
         var options = context.Options.DrugCause;
+        var request = context.Request;
+        if (request.Hook == HookKind.OrderSelect && !IsSelected(draft, request.SelectedOrders))
+        {
+            return false;
+        }
+
         var sets = DrugCauseSets.Causes(context.Knowledge).Where(s => options.WarnOnSecondaryTier || s.Tier == EvidenceTier.Primary).ToList();
         if (!MedicationMatching.MatchAll(sets, draft).Any())
         {
             return false;
         }
 
-        var request = context.Request;
         return OrderWarningReason.Decide(context.Sodium.Results, context.Thresholds.NormalFrom, options, request.Now, request.Facts.AgeAt(request.Now)) is not null;
     }
 

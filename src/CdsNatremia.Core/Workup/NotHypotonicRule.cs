@@ -40,6 +40,11 @@ public sealed class NotHypotonicRule : IAssessmentRule
         {
             spoke = true;
             Pseudohyponatremia(context, t, options, card);
+            // A raised gap alone does not decide: pseudohyponatremia raises it too (the measured sodium is falsely low).
+            if (OsmoleAgents.InRecord(context.Request.Facts).Count > 0)
+            {
+                IsotonicWithOsmole(context, t, card);
+            }
         }
         else if (t.Band == Tonicity.Hypertonic && !t.GlucoseIsHigh)
         {
@@ -193,6 +198,28 @@ public sealed class NotHypotonicRule : IAssessmentRule
         card.OfferSummaryAction(SummaryPriority, likely is null
             ? "look for another osmole; treat the cause"
             : Invariant.Format($"likely {likely}; treat the cause"));
+    }
+
+    /// <summary>
+    /// A normal measured osmolality with an osmotic agent in the record: the agent likely holds the osmolality up, so the
+    /// low sodium is not hypotonic (summary and indicator as for hypertonic). The gap, when raised, is quoted as evidence.
+    /// </summary>
+    private static void IsotonicWithOsmole(DecisionContext context, TonicityAssessment t, AssessmentBuilder card)
+    {
+        var agents = OsmoleAgents.InRecord(context.Request.Facts);
+        foreach (var (medication, _) in agents)
+        {
+            card.ResourcesUsed.Add(medication.Reference);
+        }
+
+        var evidence = t.GapIsHigh
+            ? Invariant.Format($"osmolality {Invariant.Number(t.Measured!.Value)} mOsm/kg (gap {Invariant.Number(t.Gap!.Value)})")
+            : Invariant.Format($"osmolality {Invariant.Number(t.Measured!.Value)} mOsm/kg");
+        var likely = string.Join(" or ", agents.Select(a => a.Label).Distinct(StringComparer.Ordinal));
+        card.MarkNotHypotonic(evidence);
+        card.Findings.Insert(0, Invariant.Format(
+            $"This is **not hypotonic hyponatremia** ({evidence}): the likely osmole is **{likely}**, in the record. The correction limits of hypotonic hyponatremia do not apply."));
+        card.OfferSummaryAction(SummaryPriority + 1, Invariant.Format($"likely {likely}"));
     }
 
     private static void OsmoleWithoutOsmolality(IReadOnlyList<(MedicationFact Medication, string Label)> agents, AssessmentBuilder card)

@@ -29,6 +29,11 @@ internal sealed class RuleOptionsValidator : IValidateOptions<RuleOptions>
             failures.Add("Natremia:Rules:Workup: ThyrotropinNormalFrom must be below ThyrotropinNormalTo.");
         }
 
+        if (options.Workup.FurstStricterRestrictionFrom > options.Workup.FurstRestrictionUnlikelyAbove)
+        {
+            failures.Add("Natremia:Rules:Workup: FurstStricterRestrictionFrom must not exceed FurstRestrictionUnlikelyAbove.");
+        }
+
         var t = options.Severity.Resolve();
         if (!(t.ModerateFrom < t.MildFrom && t.MildFrom < t.NormalFrom && t.NormalFrom < t.NormalTo))
         {

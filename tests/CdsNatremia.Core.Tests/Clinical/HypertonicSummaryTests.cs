@@ -41,6 +41,31 @@ public class HypertonicSummaryTests
     }
 
     [Fact]
+    public void Compose_NormalOsmolalityWithGlycineInTheRecord_NotHypotonicNamesGlycineAndNotCritical()
+    {
+        // Measured 288 (≤ 295: isotonic, common practice); calculated 2 × 118 + 5 + 5 = 246, gap 42 > 10 (reference sheet):
+        // with glycine irrigation in the record the likely osmole is named (common practice), not a low-sodium emergency.
+        var glycine = new MedicationFact("MedicationStatement", "gly", [], [], "glycine 1.5% irrigation solution", MedicationUse.Active, Some.Now.AddHours(-5), "effectivePeriod.start");
+        var facts = Some.Facts(Some.Sodium(118, 2), Some.Lab(Analyte.SerumOsmolality, 288, 2), Some.Lab(Analyte.Glucose, 5, 2), Some.Lab(Analyte.Urea, 5, 2))
+            with { Medications = [glycine] };
+        var card = SomeClinical.Assessment(facts);
+        Assert.StartsWith("Not hypotonic: sodium 118 mmol/L (profound range", card.Summary, StringComparison.Ordinal);
+        Assert.Contains("osmolality 288 mOsm/kg (gap 42)", card.Summary, StringComparison.Ordinal);
+        Assert.Contains("likely glycine irrigation fluid", card.Summary, StringComparison.Ordinal);
+        Assert.Equal(CardIndicator.Warning, card.Indicator);
+    }
+
+    [Fact]
+    public void Compose_NormalOsmolalityWithRaisedGapButNoOsmole_PseudohyponatremiaReadingKept()
+    {
+        // Pseudohyponatremia raises the gap too (the measured sodium is falsely low), so a gap alone does not decide.
+        var facts = Some.Facts(Some.Sodium(118, 2), Some.Lab(Analyte.SerumOsmolality, 288, 2), Some.Lab(Analyte.Glucose, 5, 2), Some.Lab(Analyte.Urea, 5, 2));
+        var card = SomeClinical.Assessment(facts);
+        Assert.StartsWith("Sodium 118 mmol/L (profound hyponatremia", card.Summary, StringComparison.Ordinal);
+        Assert.Contains("pseudohyponatremia", card.Detail, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Compose_HypotonicProfound_StillCritical()
     {
         // Measured 250 mOsm/kg < 275 (SIADH criteria, reference sheet): hypotonic; the profound card stays critical.

@@ -85,6 +85,16 @@ public class VaptanAndDesmopressinOrderTests
     }
 
     [Fact]
+    public void Produce_DesmopressinSelectedByBareId_StillOneCard()
+    {
+        // A selection given as the bare id "dd" (not "MedicationRequest/dd"): the prescribing warning does not take it as
+        // selected, so the rate-caution card must speak; never zero cards (issue 13: never silent).
+        var request = Some.Request(Some.Facts(Some.Sodium(126, 3)), HookKind.OrderSelect) with { DraftOrders = [Desmopressin], SelectedOrders = ["dd"] };
+        var card = Assert.Single(Some.Engine(knowledge: SomeClinical.Knowledge).Decide(request));
+        Assert.Contains("lowers sodium", card.Summary, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Produce_DesmopressinWithoutOvercorrection_NoReloweringText()
     {
         var card = Assert.Single(Orders(Some.Facts(Some.Sodium(126, 3)), Desmopressin));

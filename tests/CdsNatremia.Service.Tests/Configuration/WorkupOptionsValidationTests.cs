@@ -23,6 +23,21 @@ public class WorkupOptionsValidationTests
         Assert.Contains("Natremia:Rules:Workup", result.FailureMessage, StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData(1.2, 1.0, false)] // stricter band starting above the "unlikely" edge: the Furst bands would overlap
+    [InlineData(0.5, 1.0, true)]  // defaults (Furst et al. 2000; bands from memory)
+    [InlineData(1.0, 1.0, true)]
+    public void Validate_FurstBands_StricterEdgeMustNotExceedTheUnlikelyEdge(double stricterFrom, double unlikelyAbove, bool valid)
+    {
+        var options = new RuleOptions { Workup = new WorkupOptions { FurstStricterRestrictionFrom = stricterFrom, FurstRestrictionUnlikelyAbove = unlikelyAbove } };
+        var result = new RuleOptionsValidator().Validate(null, options);
+        Assert.Equal(valid, result.Succeeded);
+        if (!valid)
+        {
+            Assert.Contains("FurstStricterRestrictionFrom must not exceed FurstRestrictionUnlikelyAbove", result.FailureMessage, StringComparison.Ordinal);
+        }
+    }
+
     [Fact]
     public async Task Configuration_KatzChosen_ServiceSummaryUsesKatz()
     {
