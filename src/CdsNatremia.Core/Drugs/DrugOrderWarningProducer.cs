@@ -144,7 +144,8 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         return new Card
         {
             Summary = Summary.Fit(SummaryText(main, reason, band, thresholds, options)),
-            Indicator = profound ? CardIndicator.Critical : CardIndicator.Warning,
+            // A stale sodium calls for a recheck first: at most a warning, never a critical interruption.
+            Indicator = profound && !context.Sodium.LatestIsStale ? CardIndicator.Critical : CardIndicator.Warning,
             Detail = detail.ToString(),
             Topic = "drug-order-warning",
             RuleIds = [RuleId],
