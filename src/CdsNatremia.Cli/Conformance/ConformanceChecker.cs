@@ -5,7 +5,8 @@ namespace CdsNatremia.Cli.Conformance;
 
 /// <summary>
 /// Checks any CDS Hooks service against the standard: its discovery document, its answers to the scenario library
-/// (prefetch filled from its own templates), and 412 when prefetch is removed and no fhirServer is given.
+/// (prefetch filled from its own templates), and 412 when prefetch is removed and no fhirServer is given (a result hook
+/// may instead answer 200 from the results in its context).
 /// Reports violations; never stops at the first.
 /// </summary>
 internal static class ConformanceChecker
@@ -64,7 +65,12 @@ internal static class ConformanceChecker
             var composed = HookRequestComposer.Compose(service, input, PrefetchMode.None, Guid.NewGuid());
             var (status, _) = await ReplayRunner.PostAsync(client, service.Id, composed.Body, cancellationToken).ConfigureAwait(false);
             sent++;
-            if (status != 412)
+            if (status == 200 && composed.Body["context"]?["results"] is not null)
+            {
+                // A result hook may answer from the results that arrived in its context (they hold what it needs).
+                notes.Add($"{service.Id}: answered without prefetch from the results in its context (allowed)");
+            }
+            else if (status != 412)
             {
                 violations.Add(ConformanceRules.Of("prefetch.412", $"{service.Id} / {input.Name} without prefetch or fhirServer", $"HTTP {status}"));
             }

@@ -197,7 +197,8 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         return new Card
         {
             Summary = Summary.Fit(SummaryText(main, reason, band, thresholds, options)),
-            Indicator = profound && relowering is null ? CardIndicator.Critical : CardIndicator.Warning,
+            // A stale sodium calls for a recheck first, and a deliberate re-lowering is a senior decision: at most a warning.
+            Indicator = profound && relowering is null && !context.Sodium.LatestIsStale ? CardIndicator.Critical : CardIndicator.Warning,
             Detail = detail.ToString(),
             Topic = "drug-order-warning",
             RuleIds = [RuleId],

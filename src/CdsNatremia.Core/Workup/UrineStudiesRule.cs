@@ -1,5 +1,7 @@
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
+using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Text;
 
 namespace CdsNatremia.Core.Workup;
 
@@ -53,13 +55,13 @@ public sealed class UrineStudiesRule : IAssessmentRule
         }
         else
         {
-            card.Steps.Add("**Urine osmolality**: not available; it decides whether water intake alone explains the low sodium (≤ 100 mOsm/kg).");
+            card.Steps.Add("**Urine osmolality**: " + NotUsable(context, Analyte.UrineOsmolality, serum) + "; it decides whether water intake alone explains the low sodium (≤ 100 mOsm/kg).");
         }
 
         if (urine.Sodium is not { } una2)
         {
             card.Steps.Add(Invariant.Format(
-                $"**Urine sodium**: not available; at or below {Invariant.Number(options.LowUrineSodiumAtOrBelow)} mmol/L it points to low effective arterial blood volume, above it to renal sodium loss or SIADH."));
+                $"**Urine sodium**: {NotUsable(context, Analyte.UrineSodium, serum)}; at or below {Invariant.Number(options.LowUrineSodiumAtOrBelow)} mmol/L it points to low effective arterial blood volume, above it to renal sodium loss or SIADH."));
             return;
         }
 
@@ -84,4 +86,12 @@ public sealed class UrineStudiesRule : IAssessmentRule
         card.Findings.Add(Invariant.Format($"Urine sodium {Invariant.Number(una2.Value)} mmol/L (> {Invariant.Number(options.LowUrineSodiumAtOrBelow)}){(onDiuretic ? ", taken on a diuretic" : string.Empty)}."));
         card.Differential.Add("Urine sodium above the cut-off: diuretics, kidney disease, SIADH, adrenal insufficiency, hypothyroidism, cerebral or renal salt wasting.");
     }
+
+    /// <summary>"not available", or why the result that was received could not be used (set aside, or only a bound).</summary>
+    private static string NotUsable(DecisionContext context, Analyte analyte, LabResult serum)
+        => context.Request.Facts.Observe(analyte, serum.EffectiveAt.AddHours(-context.Options.Workup.UrineUsableBeforeSodiumHours)).Match(
+            _ => "not available",
+            bound => Invariant.Format($"reported only as a bound ({Bounds.Describe(bound)} {bound.Unit}, {Markdown.Escape(bound.Reference)}), not a measurement"),
+            unread => "**unknown** (" + unread.CouldNotBeReadText + ")",
+            _ => "not available");
 }

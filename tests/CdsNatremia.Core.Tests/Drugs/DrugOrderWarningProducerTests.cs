@@ -50,6 +50,14 @@ public class DrugOrderWarningProducerTests
     }
 
     [Fact]
+    public void Produce_ProfoundSodiumButStale_AtMostWarning()
+    {
+        // 120 mmol/L is profound (2014 European guideline) but 96 h old, beyond the 72-h stale window (common practice).
+        var card = Decide(Some.Facts(Some.Sodium(120, 96)), HookKind.OrderSign, [CitalopramDraft]).Single();
+        Assert.Equal(CardIndicator.Warning, card.Indicator);
+    }
+
+    [Fact]
     public void Produce_At125_WarningNotCritical()
         => Assert.Equal(CardIndicator.Warning, Decide(Some.Facts(Some.Sodium(125)), HookKind.OrderSign, [CitalopramDraft]).Single().Indicator);
 

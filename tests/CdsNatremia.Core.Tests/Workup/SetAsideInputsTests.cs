@@ -106,6 +106,15 @@ public class SetAsideInputsTests
     }
 
     [Fact]
+    public void Card_UrineOsmolalitySetAside_StepSaysUnknownCouldNotBeReadNotJustMissing()
+    {
+        var facts = Facts() with { SetAside = [new SetAsideItem("Observation/uosm-9", "Urine osmolality 400 mg", "unit 'mg' is not accepted", Analyte.UrineOsmolality, Some.Now.AddHours(-1))] };
+        var card = WorkupTestData.Card(facts);
+        Assert.Contains("**Urine osmolality**: **unknown** (could not be read: urine osmolality Observation/uosm-9", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("(2) Urine osmolality > 100 mOsm/kg: **unknown (could not be read)**", card.Detail, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Card_ThiazideStoppedFourDaysAgo_ListedRecentlyStoppedAsPossibleNeverLikely()
     {
         var card = WorkupTestData.Card(Facts() with { StoppedMedications = [Stopped(4)] });
