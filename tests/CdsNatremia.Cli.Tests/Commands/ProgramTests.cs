@@ -36,6 +36,14 @@ public class ProgramTests
         => Assert.Equal(expected, await Program.Main(args));
 
     [Fact]
+    public void Defaults_ScenariosWriteAndReplay_SameAsOf()
+    {
+        // Files written with the defaults and replayed with the defaults read the same dates ("now").
+        Assert.Equal("now", new Cli.Commands.ScenariosWriteCommand.Settings { Folder = "x" }.AsOf);
+        Assert.Equal(new Cli.Commands.ScenariosWriteCommand.Settings { Folder = "x" }.AsOf, new Cli.Commands.ReplayCommand.Settings().AsOf);
+    }
+
+    [Fact]
     public async Task Replay_InProcessAtTheAnchor_EachHookAsExpected()
     {
         // Patient-view, the result hook, a normal sodium and order-select (the order-sign scenario has a known
