@@ -14,6 +14,8 @@ internal static class Program
         {
             config.SetApplicationName("natremia");
             config.SetApplicationVersion("0.1.0");
+            // Every command refuses an option or argument it does not know (exit 2, with a "did you mean").
+            config.UseStrictParsing();
             config.AddBranch("scenarios", scenarios =>
             {
                 scenarios.SetDescription("The invented patients: list them, or write their Bundles, draft orders and manifest to a folder.");
@@ -50,6 +52,11 @@ internal static class Program
                         return tool.ExitCode;
                     case CommandAppException:
                         AnsiConsole.MarkupLine("[red]" + Markup.Escape(exception.Message) + "[/]");
+                        if (OptionSuggestions.Hint(exception.Message, args) is { } hint)
+                        {
+                            AnsiConsole.MarkupLine(Markup.Escape(hint));
+                        }
+
                         return ExitCodes.Usage;
                     case HttpRequestException or TaskCanceledException:
                         AnsiConsole.MarkupLine("[red]Could not reach the service: " + Markup.Escape(exception.Message) + "[/]");

@@ -96,7 +96,7 @@ public class HookAnswerBenchmarks
 
         public Task<IReadOnlyList<FeedbackEntry>> FindFeedbackAsync(Guid cardUuid, CancellationToken cancellationToken) => Task.FromResult<IReadOnlyList<FeedbackEntry>>([]);
 
-        public Task<OverrideReport> ReportAsync(DateTimeOffset from, DateTimeOffset to, string? serviceId, CancellationToken cancellationToken)
+        public Task<OverrideReport> ReportAsync(DateTimeOffset from, DateTimeOffset to, string? serviceId, bool includeTestTraffic, CancellationToken cancellationToken)
             => Task.FromResult(new OverrideReport(from, to, serviceId, 1, []));
 
         public Task<int> PurgeAsync(DateTimeOffset issuedBefore, CancellationToken cancellationToken) => Task.FromResult(0);

@@ -47,4 +47,10 @@ public sealed record IssuedCardRecord
 
     /// <summary>When the card was issued (from the host's TimeProvider).</summary>
     public required DateTimeOffset IssuedAt { get; init; }
+
+    /// <summary>
+    /// True when the request was marked as test traffic (the toolkit's marker, docs/audit.md): the card is kept in the
+    /// trail like any other but reports leave it out unless asked to include test traffic.
+    /// </summary>
+    public bool TestTraffic { get; init; }
 }

@@ -10,4 +10,11 @@ namespace CdsNatremia.Audit.Reports;
 /// <param name="ServiceId">The service the report is limited to, or null for all.</param>
 /// <param name="BucketDays">Length of one point of <see cref="RuleOverrides.Series"/>, in days (1, 7 or 30 by range length).</param>
 /// <param name="Rules">One row per rule, ordered by rule id.</param>
-public sealed record OverrideReport(DateTimeOffset From, DateTimeOffset To, string? ServiceId, int BucketDays, IReadOnlyList<RuleOverrides> Rules);
+public sealed record OverrideReport(DateTimeOffset From, DateTimeOffset To, string? ServiceId, int BucketDays, IReadOnlyList<RuleOverrides> Rules)
+{
+    /// <summary>True when cards marked as test traffic are counted; false (the default) when they are left out.</summary>
+    public bool TestTrafficIncluded { get; init; }
+
+    /// <summary>Cards marked as test traffic in the range (and service) that the report left out; 0 when they are included.</summary>
+    public long TestCardsExcluded { get; init; }
+}

@@ -52,6 +52,11 @@ internal static class AuditSchema
             """,
             "CREATE INDEX ix_feedback_card ON feedback (card_uuid)",
         ]),
+        // Test traffic (requests the toolkit marks, docs/audit.md "Test traffic") is kept, flagged, and left out of reports.
+        (2,
+        [
+            "ALTER TABLE issued_card ADD COLUMN test_traffic INTEGER NOT NULL DEFAULT 0",
+        ]),
     ];
 
     public static int CurrentVersion => Migrations[^1].Version;

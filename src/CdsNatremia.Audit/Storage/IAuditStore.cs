@@ -32,8 +32,11 @@ public interface IAuditStore : IAsyncDisposable
     /// <summary>The feedback stored for a card, oldest outcome first.</summary>
     Task<IReadOnlyList<FeedbackEntry>> FindFeedbackAsync(Guid cardUuid, CancellationToken cancellationToken);
 
-    /// <summary>The override report for cards issued in [from, to), optionally for one service.</summary>
-    Task<OverrideReport> ReportAsync(DateTimeOffset from, DateTimeOffset to, string? serviceId, CancellationToken cancellationToken);
+    /// <summary>
+    /// The override report for cards issued in [from, to), optionally for one service. Cards marked as test traffic
+    /// are left out (and counted) unless <paramref name="includeTestTraffic"/> is true.
+    /// </summary>
+    Task<OverrideReport> ReportAsync(DateTimeOffset from, DateTimeOffset to, string? serviceId, bool includeTestTraffic, CancellationToken cancellationToken);
 
     /// <summary>Deletes cards issued before <paramref name="issuedBefore"/> with their feedback; returns the cards deleted.</summary>
     Task<int> PurgeAsync(DateTimeOffset issuedBefore, CancellationToken cancellationToken);

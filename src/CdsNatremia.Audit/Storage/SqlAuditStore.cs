@@ -88,8 +88,8 @@ public abstract class SqlAuditStore : IAuditStore
                 await ExecuteAsync(connection, transaction,
                     """
                     INSERT INTO issued_card (card_uuid, service_id, hook, hook_instance, patient_pseudonym, rule_ids, knowledge_version,
-                        software_version, indicator, topic, summary, resources_used, suggestion_uuids, issued_at_ms)
-                    VALUES (@card, @service, @hook, @instance, @patient, @rules, @knowledge, @software, @indicator, @topic, @summary, @resources, @suggestions, @at)
+                        software_version, indicator, topic, summary, resources_used, suggestion_uuids, issued_at_ms, test_traffic)
+                    VALUES (@card, @service, @hook, @instance, @patient, @rules, @knowledge, @software, @indicator, @topic, @summary, @resources, @suggestions, @at, @test)
                     """,
                     cancellationToken,
                     ("@card", uuid), ("@service", card.ServiceId), ("@hook", card.Hook), ("@instance", Id(card.HookInstance)),
@@ -97,7 +97,7 @@ public abstract class SqlAuditStore : IAuditStore
                     ("@knowledge", card.KnowledgeVersion), ("@software", card.SoftwareVersion), ("@indicator", card.Indicator),
                     ("@topic", card.Topic), ("@summary", card.Summary), ("@resources", JsonSerializer.Serialize(card.ResourcesUsed, Json)),
                     ("@suggestions", JsonSerializer.Serialize(card.SuggestionUuids.ToDictionary(s => s.Key, s => Id(s.Value)), Json)),
-                    ("@at", card.IssuedAt.ToUnixTimeMilliseconds())).ConfigureAwait(false);
+                    ("@at", card.IssuedAt.ToUnixTimeMilliseconds()), ("@test", card.TestTraffic ? 1 : 0)).ConfigureAwait(false);
                 foreach (var rule in card.RuleIds.Distinct(StringComparer.Ordinal))
                 {
                     await ExecuteAsync(connection, transaction, "INSERT INTO card_rule (card_uuid, rule_id) VALUES (@card, @rule)", cancellationToken,
@@ -195,7 +195,7 @@ public abstract class SqlAuditStore : IAuditStore
         await using var command = Command(connection, null,
             """
             SELECT card_uuid, service_id, hook, hook_instance, patient_pseudonym, rule_ids, knowledge_version, software_version,
-                indicator, topic, summary, resources_used, suggestion_uuids, issued_at_ms
+                indicator, topic, summary, resources_used, suggestion_uuids, issued_at_ms, test_traffic
             FROM issued_card WHERE card_uuid = @card
             """,
             ("@card", Id(cardUuid)));
@@ -222,6 +222,7 @@ public abstract class SqlAuditStore : IAuditStore
             SuggestionUuids = (JsonSerializer.Deserialize<Dictionary<string, string>>(reader.GetString(12), Json) ?? [])
                 .ToDictionary(s => s.Key, s => Guid.Parse(s.Value), StringComparer.Ordinal),
             IssuedAt = DateTimeOffset.FromUnixTimeMilliseconds(reader.GetInt64(13)),
+            TestTraffic = Convert.ToInt64(reader.GetValue(14), System.Globalization.CultureInfo.InvariantCulture) != 0,
         };
     }
 
@@ -254,14 +255,15 @@ public abstract class SqlAuditStore : IAuditStore
     }
 
     /// <inheritdoc />
-    public async Task<OverrideReport> ReportAsync(DateTimeOffset from, DateTimeOffset to, string? serviceId, CancellationToken cancellationToken)
+    public async Task<OverrideReport> ReportAsync(DateTimeOffset from, DateTimeOffset to, string? serviceId, bool includeTestTraffic, CancellationToken cancellationToken)
     {
         if (to <= from)
         {
             throw new ArgumentException("The report range must end after it starts.", nameof(to));
         }
 
-        var filter = serviceId is null ? string.Empty : " AND c.service_id = @service";
+        var serviceFilter = serviceId is null ? string.Empty : " AND c.service_id = @service";
+        var filter = serviceFilter + (includeTestTraffic ? string.Empty : " AND c.test_traffic = 0");
         var parameters = new List<(string, object?)> { ("@from", from.ToUnixTimeMilliseconds()), ("@to", to.ToUnixTimeMilliseconds()) };
         if (serviceId is not null)
         {
@@ -294,7 +296,12 @@ public abstract class SqlAuditStore : IAuditStore
             }
         }
 
-        return OverrideReportBuilder.Build(from, to, serviceId, rules, feedback);
+        var excluded = includeTestTraffic
+            ? 0L
+            : Convert.ToInt64(
+                await ScalarAsync(connection, null, "SELECT COUNT(*) FROM issued_card c WHERE c.issued_at_ms >= @from AND c.issued_at_ms < @to AND c.test_traffic <> 0" + serviceFilter, cancellationToken, [.. parameters]).ConfigureAwait(false),
+                System.Globalization.CultureInfo.InvariantCulture);
+        return OverrideReportBuilder.Build(from, to, serviceId, rules, feedback) with { TestTrafficIncluded = includeTestTraffic, TestCardsExcluded = excluded };
     }
 
     /// <inheritdoc />

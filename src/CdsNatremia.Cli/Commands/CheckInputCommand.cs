@@ -57,6 +57,12 @@ internal sealed class CheckInputCommand : Command<CheckInputCommand.Settings>
 
         var reading = new SodiumReadingOptions { StaleAfterHours = settings.StaleAfterHours };
         var report = new InputChecker(reading, knowledge.Base, PrefetchKeys.Templates).Check(json, settings.Patient, asOf);
+        if (report.Unusable is { } unusable)
+        {
+            // Nothing to tabulate: the file itself is not usable input (exit 2, as for any unusable input file).
+            throw new ToolException(ExitCodes.Usage, $"{settings.File}: {unusable}");
+        }
+
         if (settings.Json)
         {
             CommandSupport.WriteJson(new { file = settings.File, asOf, report.PatientId, readable = report.Readable, report.Problems, resources = report.Resources });

@@ -1,4 +1,5 @@
 using System.ComponentModel;
+using System.Globalization;
 using CdsNatremia.Cli.Conformance;
 using CdsNatremia.Cli.Hosting;
 using CdsNatremia.Cli.Replay;
@@ -32,7 +33,7 @@ internal sealed class ConformCommand : AsyncCommand<ConformCommand.Settings>
         if (settings.Json)
         {
             report = await ConformanceChecker.RunAsync(connection.Client, inputs, null, cancellationToken).ConfigureAwait(false);
-            CommandSupport.WriteJson(new { target = connection.Client.BaseAddress?.ToString(), passed = report.Passed, report.ServicesChecked, report.RequestsSent, report.Violations, report.Notes });
+            CommandSupport.WriteJson(new { target = connection.Client.BaseAddress?.ToString(), passed = report.Passed, report.ServicesChecked, report.RequestsSent, report.Rules, report.Violations, report.Notes });
             return report.Passed ? ExitCodes.Ok : ExitCodes.Failure;
         }
 
@@ -42,6 +43,15 @@ internal sealed class ConformCommand : AsyncCommand<ConformCommand.Settings>
             return await ConformanceChecker.RunAsync(connection.Client, inputs, progress, cancellationToken).ConfigureAwait(false);
         }).ConfigureAwait(false);
 
+        var table = new Table().Border(TableBorder.Simple).AddColumns("rule", "checked", "violations", "result");
+        table.Columns[0].NoWrap();
+        foreach (var rule in report.Rules)
+        {
+            var result = rule.Result switch { "pass" => "[green]pass[/]", "fail" => "[red]FAIL[/]", _ => "[grey]not exercised[/]" };
+            table.AddRow(new Text(rule.Rule), new Text(rule.Checks.ToString(CultureInfo.InvariantCulture)), new Text(rule.Violations.ToString(CultureInfo.InvariantCulture)), new Markup(result));
+        }
+
+        AnsiConsole.Write(table);
         foreach (var violation in report.Violations)
         {
             AnsiConsole.MarkupLine($"[red]✗ {Markup.Escape(violation.Rule)}[/] at {Markup.Escape(violation.Where)}: found {Markup.Escape(violation.Found)}");
@@ -54,7 +64,7 @@ internal sealed class ConformCommand : AsyncCommand<ConformCommand.Settings>
         }
 
         AnsiConsole.MarkupLine(report.Passed
-            ? $"[green]Conforms: {report.ServicesChecked} services, {report.RequestsSent} requests, no violation.[/]"
+            ? $"[green]Conforms: {report.Rules.Count(r => r.Result == "pass")} of {report.Rules.Count} rules checked and kept ({report.Rules.Count(r => r.Result == "not exercised")} not exercised), {report.ServicesChecked} services, {report.RequestsSent} requests, no violation.[/]"
             : $"[red]{report.Violations.Count} violation(s) in {report.RequestsSent} requests to {report.ServicesChecked} services.[/]");
         return report.Passed ? ExitCodes.Ok : ExitCodes.Failure;
     }

@@ -17,7 +17,7 @@ internal sealed class ReplayCommand : AsyncCommand<ReplayCommand.Settings>
         public string? Input { get; set; }
 
         [CommandOption("--all")]
-        [Description("Replay every scenario. Each scenario (all or one) is compared with the manifest's expectation; a difference exits 1.")]
+        [Description("Replay every scenario and print the comparison table (cards too with -v). Each scenario (all or one) is compared with every field of the manifest's expectation; a difference exits 1.")]
         public bool All { get; set; }
 
         [CommandOption("--service <ID>")]
@@ -61,7 +61,7 @@ internal sealed class ReplayCommand : AsyncCommand<ReplayCommand.Settings>
         public bool Json { get; set; }
 
         [CommandOption("-v|--verbose")]
-        [Description("Also print how prefetch was filled and the FHIR requests the service made.")]
+        [Description("Also print the prefetch sent (each key's search and the resources it carried) or, with --no-prefetch, every FHIR request the service made.")]
         public bool Verbose { get; set; }
 
         public override ValidationResult Validate()
@@ -89,25 +89,23 @@ internal sealed class ReplayCommand : AsyncCommand<ReplayCommand.Settings>
         var mode = settings.NoPrefetch ? PrefetchMode.FhirServer : settings.NoData ? PrefetchMode.None : PrefetchMode.Evaluate;
         await using var connection = await ServiceConnection.OpenAsync(settings, asOf, cancellationToken).ConfigureAwait(false);
         var services = await Discovery.GetAsync(connection.Client, cancellationToken).ConfigureAwait(false);
-        var results = new List<(ReplayResult Result, IReadOnlyList<string> Mismatches)>();
+        var results = new List<(ReplayResult Result, IReadOnlyList<FieldComparison> Comparison)>();
         foreach (var input in inputs)
         {
             var service = ReplayRunner.Choose(services, input, settings.Service);
             var result = await ReplayRunner.RunAsync(connection.Client, service, input, mode, cancellationToken).ConfigureAwait(false);
-            var mismatches = input.Scenario is { } scenario && mode == PrefetchMode.Evaluate
-                ? ScenarioExpectation.Check(scenario, result)
+            var comparison = input.Scenario is { } scenario && mode == PrefetchMode.Evaluate
+                ? ScenarioExpectation.Compare(scenario, result)
                 : [];
-            results.Add((result, mismatches));
-            if (!settings.Json)
+            results.Add((result, comparison));
+            if (!settings.Json && (!settings.All || settings.Verbose))
             {
                 CardPrinter.Print(AnsiConsole.Console, result, settings.Verbose);
-                foreach (var mismatch in mismatches)
-                {
-                    AnsiConsole.MarkupLine($"[red]✗ {Markup.Escape(input.Name)}: {Markup.Escape(mismatch)}[/]");
-                }
             }
         }
 
+        var rows = results.SelectMany(r => r.Comparison).ToList();
+        var failed = results.Count(r => r.Comparison.Any(c => c.Result == FieldResult.Fail));
         if (settings.Json)
         {
             CommandSupport.WriteJson(results.Select(r => new
@@ -117,18 +115,23 @@ internal sealed class ReplayCommand : AsyncCommand<ReplayCommand.Settings>
                 status = r.Result.Status,
                 response = r.Result.Body,
                 notes = r.Result.Notes,
-                mismatches = r.Mismatches,
+                prefetch = settings.Verbose ? r.Result.Prefetch : null,
+                fhirRequests = settings.Verbose && r.Result.FhirRequests.Count > 0 ? r.Result.FhirRequests : null,
+                comparison = r.Comparison.Select(c => new { field = c.Field, expected = c.Expected, seen = c.Seen, result = ComparisonTable.Word(c.Result) }).ToList(),
+                mismatches = r.Comparison.Where(c => c.Result == FieldResult.Fail).Select(c => $"{c.Field}: expected {c.Expected}, seen {c.Seen}").ToList(),
             }).ToList());
         }
-        else if (settings.All)
+        else if (rows.Count > 0)
         {
-            var failed = results.Count(r => r.Mismatches.Count > 0);
+            ComparisonTable.Print(AnsiConsole.Console, rows);
+            var fields = rows.Count(r => r.Result != FieldResult.NotApplicable);
+            var wrong = rows.Count(r => r.Result == FieldResult.Fail);
             AnsiConsole.MarkupLine(failed == 0
-                ? $"[green]All {results.Count} scenarios answered as the manifest expects.[/]"
-                : $"[red]{failed} of {results.Count} scenarios differ from the manifest.[/]");
+                ? $"[green]All {results.Count} scenario(s) answered as the manifest expects ({fields} fields compared).[/]"
+                : $"[red]{failed} of {results.Count} scenario(s) differ from the manifest ({wrong} of {fields} fields).[/]");
         }
 
-        if (results.Any(r => r.Mismatches.Count > 0))
+        if (failed > 0)
         {
             return ExitCodes.Failure;
         }

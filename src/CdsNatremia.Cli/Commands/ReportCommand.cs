@@ -46,6 +46,10 @@ internal sealed class ReportCommand : AsyncCommand<ReportCommand.Settings>
         [Description("A non-loopback host the tool may call (repeat for several). Without it only loopback hosts are called.")]
         public string[] AllowHosts { get; set; } = [];
 
+        [CommandOption("--include-test")]
+        [Description("Count the cards of requests marked as test traffic (the toolkit's own requests) too. Default: left out, and their number shown.")]
+        public bool IncludeTest { get; set; }
+
         [CommandOption("--json")]
         [Description("Print the report as JSON.")]
         public bool Json { get; set; }
@@ -84,7 +88,14 @@ internal sealed class ReportCommand : AsyncCommand<ReportCommand.Settings>
 
         var to = settings.To ?? DateTimeOffset.UtcNow.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
         var from = settings.From ?? DateOnly.ParseExact(to, "yyyy-MM-dd", CultureInfo.InvariantCulture).AddDays(-30).ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
-        var query = $"admin/reports/overrides?from={from}&to={to}" + (settings.Service is { } s ? "&service=" + Uri.EscapeDataString(s) : string.Empty);
+        if (string.CompareOrdinal(from, to) > 0)
+        {
+            throw new ToolException(ExitCodes.Usage, $"--from {from} is after --to {to}: the range would be empty.");
+        }
+
+        var query = $"admin/reports/overrides?from={from}&to={to}"
+            + (settings.Service is { } s ? "&service=" + Uri.EscapeDataString(s) : string.Empty)
+            + (settings.IncludeTest ? "&includeTest=true" : string.Empty);
 
         using var http = new HttpClient { BaseAddress = baseUrl, Timeout = TimeSpan.FromSeconds(30) };
         using var request = new HttpRequestMessage(HttpMethod.Get, query);
@@ -144,6 +155,9 @@ internal sealed class ReportCommand : AsyncCommand<ReportCommand.Settings>
         }
 
         AnsiConsole.Write(table);
+        AnsiConsole.MarkupLine(report.TestTrafficIncluded
+            ? "Cards of requests marked as test traffic are counted (--include-test)."
+            : string.Create(CultureInfo.InvariantCulture, $"{report.TestCardsExcluded} card(s) of requests marked as test traffic left out (--include-test counts them)."));
         if (chart is not null)
         {
             AnsiConsole.MarkupLine("Chart written to " + Markup.Escape(chart));

@@ -24,15 +24,27 @@ internal sealed class ScenariosListCommand : Command<ScenariosListCommand.Settin
             return ExitCodes.Ok;
         }
 
-        var table = new Table().Border(TableBorder.Simple).AddColumns("id", "hook", "expected", "what a clinician would expect");
-        foreach (var scenario in ScenarioLibrary.All)
+        Print(AnsiConsole.Console, ScenarioLibrary.All);
+        return ExitCodes.Ok;
+    }
+
+    /// <summary>
+    /// One heading line per scenario (id, hook, expected card, never wrapped inside an id: ids hold no spaces and
+    /// start the line), then what a clinician would expect as a paragraph indented under it, wrapped to the console.
+    /// </summary>
+    public static void Print(IAnsiConsole console, IReadOnlyList<Scenario> scenarios)
+    {
+        ArgumentNullException.ThrowIfNull(console);
+        ArgumentNullException.ThrowIfNull(scenarios);
+        var idWidth = scenarios.Max(s => s.Id.Length);
+        var hookWidth = scenarios.Max(s => s.Hook.Length);
+        foreach (var scenario in scenarios)
         {
             var expected = scenario.ExpectsCard ? $"{scenario.ExpectedIndicator ?? "card"} ({scenario.ExpectedBand})" : $"no card ({scenario.ExpectedBand})";
-            table.AddRow(Markup.Escape(scenario.Id), scenario.Hook, Markup.Escape(expected), Markup.Escape(scenario.ClinicianExpects ?? scenario.Title));
+            console.MarkupLine($"[bold]{Markup.Escape(scenario.Id.PadRight(idWidth))}[/]  {Markup.Escape(scenario.Hook.PadRight(hookWidth))}  {Markup.Escape(expected)}");
+            console.Write(new Padder(new Text(scenario.ClinicianExpects ?? scenario.Title), new Padding(4, 0, 0, 1)));
         }
 
-        AnsiConsole.Write(table);
-        AnsiConsole.MarkupLine($"{ScenarioLibrary.All.Count} scenarios, written as of {ScenarioLibrary.Anchor:yyyy-MM-dd HH:mm} UTC. [grey]natremia scenarios write <folder> --as-of now[/] writes them.");
-        return ExitCodes.Ok;
+        console.MarkupLine($"{scenarios.Count} scenarios, written as of {ScenarioLibrary.Anchor:yyyy-MM-dd HH:mm} UTC. [grey]natremia scenarios write <folder> --as-of now[/] writes them.");
     }
 }

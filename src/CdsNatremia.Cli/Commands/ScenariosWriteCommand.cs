@@ -16,8 +16,8 @@ internal sealed class ScenariosWriteCommand : Command<ScenariosWriteCommand.Sett
         public string Folder { get; set; } = string.Empty;
 
         [CommandOption("--as-of <WHEN>")]
-        [Description("Move every date so the stories happen before this time: 'anchor' (default, 2026-03-10T12:00:00Z as written), 'now', or an ISO 8601 instant.")]
-        public string AsOf { get; set; } = "anchor";
+        [Description("Move every date so the stories happen before this time: 'now' (default, as replay does, so the files read as recent to a running service), 'anchor' (2026-03-10T12:00:00Z as written), or an ISO 8601 instant.")]
+        public string AsOf { get; set; } = "now";
 
         [CommandOption("--only <ID>")]
         [Description("Write only these scenarios (id or number prefix, repeatable).")]

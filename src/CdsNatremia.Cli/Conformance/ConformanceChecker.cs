@@ -20,11 +20,12 @@ internal static class ConformanceChecker
         ArgumentNullException.ThrowIfNull(client);
         ArgumentNullException.ThrowIfNull(inputs);
         var violations = new List<Violation>();
+        var tally = new RuleTally();
         var notes = new List<string>();
         progress?.Report("discovery");
         using var response = await client.GetAsync(new Uri("cds-services", UriKind.Relative), cancellationToken).ConfigureAwait(false);
         var text = await response.Content.ReadAsStringAsync(cancellationToken).ConfigureAwait(false);
-        var services = CheckDiscovery((int)response.StatusCode, text, violations);
+        var services = CheckDiscovery((int)response.StatusCode, text, violations, tally);
         var uuids = new HashSet<string>(StringComparer.Ordinal);
         var sent = 0;
         foreach (var input in inputs)
@@ -44,7 +45,7 @@ internal static class ConformanceChecker
             var composed = HookRequestComposer.Compose(service, input, PrefetchMode.Evaluate, Guid.NewGuid());
             var (status, body) = await ReplayRunner.PostAsync(client, service.Id, composed.Body, cancellationToken).ConfigureAwait(false);
             sent++;
-            CheckResponse($"{service.Id} / {input.Name}", status, body, uuids, violations);
+            CheckResponse($"{service.Id} / {input.Name}", status, body, uuids, violations, tally);
         }
 
         foreach (var service in services)
@@ -70,19 +71,20 @@ internal static class ConformanceChecker
                 // A result hook may answer from the results that arrived in its context (they hold what it needs).
                 notes.Add($"{service.Id}: answered without prefetch from the results in its context (allowed)");
             }
-            else if (status != 412)
+            else if (Count(tally, "prefetch.412") && status != 412)
             {
                 violations.Add(ConformanceRules.Of("prefetch.412", $"{service.Id} / {input.Name} without prefetch or fhirServer", $"HTTP {status}"));
             }
         }
 
-        return new ConformanceReport(violations, services.Count, sent, notes);
+        return new ConformanceReport(violations, services.Count, sent, notes) { Checks = tally.Checks };
     }
 
     /// <summary>Checks a discovery document; returns the services it lists (those with an id and a hook).</summary>
-    public static IReadOnlyList<DiscoveredService> CheckDiscovery(int status, string text, List<Violation> violations)
+    public static IReadOnlyList<DiscoveredService> CheckDiscovery(int status, string text, List<Violation> violations, RuleTally? tally = null)
     {
         ArgumentNullException.ThrowIfNull(violations);
+        tally ??= new RuleTally();
         JsonNode? root = null;
         try
         {
@@ -93,12 +95,14 @@ internal static class ConformanceChecker
             // Reported below.
         }
 
+        tally.Checked("discovery.status");
         if (status != 200 || root is not JsonObject)
         {
             violations.Add(ConformanceRules.Of("discovery.status", "discovery", $"HTTP {status}{(root is JsonObject ? string.Empty : ", body not a JSON object")}"));
             return [];
         }
 
+        tally.Checked("discovery.services");
         if (root["services"] is not JsonArray services)
         {
             violations.Add(ConformanceRules.Of("discovery.services", "discovery", "no 'services' array"));
@@ -109,6 +113,7 @@ internal static class ConformanceChecker
         for (var i = 0; i < services.Count; i++)
         {
             var where = $"discovery services[{i}]";
+            tally.Checked("discovery.service.required");
             if (services[i] is not JsonObject service)
             {
                 violations.Add(ConformanceRules.Of("discovery.service.required", where, "not a JSON object"));
@@ -123,12 +128,12 @@ internal static class ConformanceChecker
                 }
             }
 
-            if ((string?)(service["id"] as JsonValue) is { } id && !ids.Add(id))
+            if ((string?)(service["id"] as JsonValue) is { } id && Count(tally, "discovery.service.id-unique") && !ids.Add(id))
             {
                 violations.Add(ConformanceRules.Of("discovery.service.id-unique", $"{where}.id", $"'{id}' appears more than once"));
             }
 
-            if (service["prefetch"] is { } prefetch && (prefetch is not JsonObject templates || templates.Any(t => !IsNonEmptyString(t.Value))))
+            if (service["prefetch"] is { } prefetch && Count(tally, "discovery.prefetch.strings") && (prefetch is not JsonObject templates || templates.Any(t => !IsNonEmptyString(t.Value))))
             {
                 violations.Add(ConformanceRules.Of("discovery.prefetch.strings", $"{where}.prefetch", "not an object of template strings"));
             }
@@ -138,16 +143,19 @@ internal static class ConformanceChecker
     }
 
     /// <summary>Checks one hook response; card and suggestion uuids are collected across responses.</summary>
-    public static void CheckResponse(string where, int status, JsonNode? body, HashSet<string> uuids, List<Violation> violations)
+    public static void CheckResponse(string where, int status, JsonNode? body, HashSet<string> uuids, List<Violation> violations, RuleTally? tally = null)
     {
         ArgumentNullException.ThrowIfNull(uuids);
         ArgumentNullException.ThrowIfNull(violations);
+        tally ??= new RuleTally();
+        tally.Checked("response.status");
         if (status != 200 || body is not JsonObject root)
         {
             violations.Add(ConformanceRules.Of("response.status", where, $"HTTP {status}{(body is JsonObject ? string.Empty : ", body not a JSON object")}"));
             return;
         }
 
+        tally.Checked("response.cards");
         if (root["cards"] is not JsonArray cards)
         {
             violations.Add(ConformanceRules.Of("response.cards", where, "no 'cards' array"));
@@ -158,8 +166,9 @@ internal static class ConformanceChecker
         {
             if (cards[i] is JsonObject card)
             {
+                tally.Checked("response.empty-values");
                 EmptyValues(card, $"{where} / cards[{i}]", violations);
-                CheckCard(card, $"{where} / cards[{i}]", uuids, violations);
+                CheckCard(card, $"{where} / cards[{i}]", uuids, violations, tally);
             }
             else
             {
@@ -171,22 +180,26 @@ internal static class ConformanceChecker
         {
             for (var i = 0; i < systemActions.Count; i++)
             {
-                CheckAction(systemActions[i] as JsonObject, $"{where} / systemActions[{i}]", violations);
+                CheckAction(systemActions[i] as JsonObject, $"{where} / systemActions[{i}]", violations, tally);
             }
         }
     }
 
-    private static void CheckCard(JsonObject card, string where, HashSet<string> uuids, List<Violation> violations)
+    private static void CheckCard(JsonObject card, string where, HashSet<string> uuids, List<Violation> violations, RuleTally tally)
     {
+        tally.Checked("card.summary.required");
         if (card["summary"] is not JsonValue s || !s.TryGetValue<string>(out var summary))
         {
             violations.Add(ConformanceRules.Of("card.summary.required", where + ".summary", Describe(card["summary"])));
         }
-        else if (summary.Length >= 140)
+        else if (Count(tally, "card.summary.length") && summary.Length >= 140)
         {
             violations.Add(ConformanceRules.Of("card.summary.length", where + ".summary", $"{summary.Length} characters"));
         }
 
+        tally.Checked("card.indicator.value");
+        tally.Checked("card.source.label");
+        tally.Checked("card.selectionBehavior");
         if ((string?)(card["indicator"] as JsonValue) is not { } indicator || !Indicators.Contains(indicator))
         {
             violations.Add(ConformanceRules.Of("card.indicator.value", where + ".indicator", Describe(card["indicator"])));
@@ -198,10 +211,10 @@ internal static class ConformanceChecker
         }
         else if (source["topic"] is { } topic)
         {
-            CheckCoding(topic, where + ".source.topic", violations);
+            CheckCoding(topic, where + ".source.topic", violations, tally);
         }
 
-        Unique(card["uuid"], where + ".uuid", uuids, violations);
+        Unique(card["uuid"], where + ".uuid", uuids, violations, tally);
         var suggestions = card["suggestions"] as JsonArray;
         var hasSuggestions = suggestions is { Count: > 0 };
         var behavior = (string?)(card["selectionBehavior"] as JsonValue);
@@ -214,18 +227,19 @@ internal static class ConformanceChecker
         for (var i = 0; suggestions is not null && i < suggestions.Count; i++)
         {
             var suggestionWhere = $"{where}.suggestions[{i}]";
+            tally.Checked("suggestion.label");
             if (suggestions[i] is not JsonObject suggestion || !IsNonEmptyString(suggestion["label"]))
             {
                 violations.Add(ConformanceRules.Of("suggestion.label", suggestionWhere, Describe((suggestions[i] as JsonObject)?["label"])));
                 continue;
             }
 
-            Unique(suggestion["uuid"], suggestionWhere + ".uuid", uuids, violations);
+            Unique(suggestion["uuid"], suggestionWhere + ".uuid", uuids, violations, tally);
             if (suggestion["actions"] is JsonArray actions)
             {
                 for (var a = 0; a < actions.Count; a++)
                 {
-                    CheckAction(actions[a] as JsonObject, $"{suggestionWhere}.actions[{a}]", violations);
+                    CheckAction(actions[a] as JsonObject, $"{suggestionWhere}.actions[{a}]", violations, tally);
                 }
             }
         }
@@ -234,7 +248,8 @@ internal static class ConformanceChecker
         {
             for (var i = 0; i < reasons.Count; i++)
             {
-                CheckCoding(reasons[i], $"{where}.overrideReasons[{i}]", violations);
+                CheckCoding(reasons[i], $"{where}.overrideReasons[{i}]", violations, tally);
+                tally.Checked("overrideReason.display");
                 if (!IsNonEmptyString(reasons[i]?["display"]))
                 {
                     violations.Add(ConformanceRules.Of("overrideReason.display", $"{where}.overrideReasons[{i}].display", Describe(reasons[i]?["display"])));
@@ -247,6 +262,7 @@ internal static class ConformanceChecker
             for (var i = 0; i < links.Count; i++)
             {
                 var link = links[i] as JsonObject;
+                tally.Checked("link.fields");
                 var type = (string?)(link?["type"] as JsonValue);
                 if (link is null || !IsNonEmptyString(link["label"]) || !Uri.TryCreate((string?)(link["url"] as JsonValue), UriKind.Absolute, out _) || type is not ("absolute" or "smart"))
                 {
@@ -256,8 +272,10 @@ internal static class ConformanceChecker
         }
     }
 
-    private static void CheckAction(JsonObject? action, string where, List<Violation> violations)
+    private static void CheckAction(JsonObject? action, string where, List<Violation> violations, RuleTally tally)
     {
+        tally.Checked("action.type");
+        tally.Checked("action.description");
         var type = (string?)(action?["type"] as JsonValue);
         if (type is not ("create" or "update" or "delete"))
         {
@@ -269,28 +287,29 @@ internal static class ConformanceChecker
             violations.Add(ConformanceRules.Of("action.description", where + ".description", Describe(action?["description"])));
         }
 
-        if (type is "create" or "update" && (action?["resource"] is not JsonObject resource || !IsNonEmptyString(resource["resourceType"])))
+        if (type is "create" or "update" && Count(tally, "action.resource") && (action?["resource"] is not JsonObject resource || !IsNonEmptyString(resource["resourceType"])))
         {
             violations.Add(ConformanceRules.Of("action.resource", where + ".resource", Describe(action?["resource"])));
         }
 
-        if (type == "delete" && ((string?)(action?["resourceId"] as JsonValue) is not { } id || !IsRelativeReference(id)))
+        if (type == "delete" && Count(tally, "action.resourceId") && ((string?)(action?["resourceId"] as JsonValue) is not { } id || !IsRelativeReference(id)))
         {
             violations.Add(ConformanceRules.Of("action.resourceId", where + ".resourceId", Describe(action?["resourceId"])));
         }
     }
 
-    private static void CheckCoding(JsonNode? coding, string where, List<Violation> violations)
+    private static void CheckCoding(JsonNode? coding, string where, List<Violation> violations, RuleTally tally)
     {
+        tally.Checked("coding.system-code");
         if (coding is not JsonObject obj || !IsNonEmptyString(obj["system"]) || !IsNonEmptyString(obj["code"]))
         {
             violations.Add(ConformanceRules.Of("coding.system-code", where, coding?.ToJsonString() ?? "missing"));
         }
     }
 
-    private static void Unique(JsonNode? uuid, string where, HashSet<string> uuids, List<Violation> violations)
+    private static void Unique(JsonNode? uuid, string where, HashSet<string> uuids, List<Violation> violations, RuleTally tally)
     {
-        if ((string?)(uuid as JsonValue) is { } text && !uuids.Add(text))
+        if ((string?)(uuid as JsonValue) is { } text && Count(tally, "card.uuid.unique") && !uuids.Add(text))
         {
             violations.Add(ConformanceRules.Of("card.uuid.unique", where, $"'{text}' was already used"));
         }
@@ -342,6 +361,13 @@ internal static class ConformanceChecker
         {
             return null;
         }
+    }
+
+    // Notes a check inside a condition, once the rule applies; always true.
+    private static bool Count(RuleTally tally, string rule)
+    {
+        tally.Checked(rule);
+        return true;
     }
 
     private static bool IsNonEmptyString(JsonNode? node) => node is JsonValue v && v.TryGetValue<string>(out var s) && s.Length > 0;

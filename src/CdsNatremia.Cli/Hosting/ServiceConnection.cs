@@ -1,4 +1,5 @@
 using CdsNatremia.Cli.Commands;
+using CdsNatremia.Service.Audit;
 
 namespace CdsNatremia.Cli.Hosting;
 
@@ -40,6 +41,8 @@ internal sealed class ServiceConnection : IAsyncDisposable
         }
 
         var client = new HttpClient(handler) { BaseAddress = baseUrl, Timeout = TimeSpan.FromSeconds(settings.TimeoutSeconds) };
+        // Every request of the toolkit is test traffic: the service records its cards flagged, and reports leave them out.
+        client.DefaultRequestHeaders.Add(TestTraffic.Header, TestTraffic.Value);
         return new ServiceConnection(client, inProcess);
     }
 

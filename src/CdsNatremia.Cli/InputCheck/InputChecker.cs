@@ -40,14 +40,19 @@ internal sealed class InputChecker
         }
         catch (JsonException ex)
         {
-            return new InputReport(null, [], [$"not JSON: {ex.Message}"]);
+            var where = ex.LineNumber is { } line
+                ? string.Create(CultureInfo.InvariantCulture, $" at line {line + 1}, column {(ex.BytePositionInLine ?? 0) + 1}")
+                : string.Empty;
+            var reason = ex.Message.Split(" LineNumber:", 2)[0].Split(" Path:", 2)[0].Trim();
+            return new InputReport(null, [], []) { Unusable = $"not valid JSON{where}: {reason}" };
         }
 
         if (root is not JsonObject bundle || (string?)bundle["resourceType"] != "Bundle")
         {
-            return new InputReport(null, [], ["not a FHIR Bundle (resourceType must be \"Bundle\")"]);
+            return new InputReport(null, [], []) { Unusable = "not a FHIR Bundle (resourceType must be \"Bundle\")" };
         }
 
+        var spans = new ResourceSpans(bundleJson);
         var raw = FhirSearchEvaluator.ResourcesOf(bundle);
         var patients = raw.Where(r => FhirSearchEvaluator.TypeOf(r) == "Patient").Select(FhirSearchEvaluator.IdOf).OfType<string>().ToList();
         var patient = patientId ?? (patients.Count == 1 ? patients[0] : null);
@@ -82,10 +87,12 @@ internal sealed class InputChecker
             }
 
             // The service's own parser decides whether it reads the resource; a strict parse says what is not valid FHIR.
-            var issues = StrictFhirCheck.Issues(resource.ToJsonString());
-            if (_parser.TryParse(resource.ToJsonString(), out var parseProblem) is null)
+            // Both read the resource as the file has it, so the positions they report are mapped to the file's.
+            var text = spans.Text(i) ?? resource.ToJsonString();
+            var issues = StrictFhirCheck.Issues(text).Select(issue => spans.InFile(i, issue)).ToList();
+            if (_parser.TryParse(text, out var parseProblem) is null)
             {
-                verdicts.Add(new(reference, "unreadable", $"not readable as FHIR R4 ({parseProblem}); the service refuses it whole", keys) { FhirIssues = issues });
+                verdicts.Add(new(reference, "unreadable", $"not readable as FHIR R4 ({spans.InFile(i, parseProblem ?? string.Empty)}); the service refuses it whole", keys) { FhirIssues = issues });
                 continue;
             }
 
@@ -144,7 +151,7 @@ internal sealed class InputChecker
         var clue = _knowledge.WithIdPrefix("condition-").FirstOrDefault(set => fact.Codes.Any(set.Matches));
         return clue is not null
             ? ("used", $"a clue the work-up names: {clue.Label}")
-            : ("used", "active, but none of its codes is in a condition set the service knows, so it is not named as a clue");
+            : ("ignored", "active and confirmed, but none of its codes is in a condition set the service knows (profiles/valuesets/condition-*), so the work-up does not use it");
     }
 
     private (string, string) Medication(string type, string? id, PatientFacts facts)
@@ -163,7 +170,7 @@ internal sealed class InputChecker
         var match = MedicationMatching.MatchAll(_knowledge.WithIdPrefix("drug-"), fact).FirstOrDefault();
         return match is not null
             ? ("used", $"matched {match.Set.Label}: {match.Ingredient} by {match.By}")
-            : ("used", "taken, but in no drug group the service checks (codes and name did not match)");
+            : ("ignored", "taken, but in no drug group the service checks (codes and name did not match), so the work-up does not use it");
     }
 
     private Dictionary<JsonObject, List<string>> SelectedBy(IReadOnlyList<JsonObject> resources, JsonObject context)

@@ -61,10 +61,11 @@ internal static class HookRequestComposer
             ["context"] = context,
         };
 
+        var queries = new Dictionary<string, string>(StringComparer.Ordinal);
         switch (mode)
         {
             case PrefetchMode.Evaluate when service.Prefetch.Count > 0:
-                body["prefetch"] = Prefetch(service, input, context, notes);
+                body["prefetch"] = Prefetch(service, input, context, notes, queries);
                 break;
             case PrefetchMode.FhirServer:
                 body["fhirServer"] = (fhirServer ?? throw new ArgumentNullException(nameof(fhirServer))).ToString();
@@ -80,11 +81,11 @@ internal static class HookRequestComposer
                 break;
         }
 
-        return new ComposedRequest(service.Id, body, notes);
+        return new ComposedRequest(service.Id, body, notes) { PrefetchQueries = queries };
     }
 
     /// <summary>Evaluates every template of the service against the input's resources.</summary>
-    public static JsonObject Prefetch(DiscoveredService service, ReplayInput input, JsonObject context, List<string> notes)
+    public static JsonObject Prefetch(DiscoveredService service, ReplayInput input, JsonObject context, List<string> notes, Dictionary<string, string>? queries = null)
     {
         ArgumentNullException.ThrowIfNull(service);
         ArgumentNullException.ThrowIfNull(input);
@@ -95,7 +96,9 @@ internal static class HookRequestComposer
             FhirQuery query;
             try
             {
-                query = FhirQuery.Parse(PrefetchTokens.Substitute(template, context));
+                var text = PrefetchTokens.Substitute(template, context);
+                queries?.Add(key, text);
+                query = FhirQuery.Parse(text);
             }
             catch (FormatException ex)
             {

@@ -42,13 +42,12 @@ internal static class ReplayRunner
 
             var composed = HookRequestComposer.Compose(service, input, mode, Guid.NewGuid(), server?.BaseUrl, server?.AccessToken);
             var (status, body) = await PostAsync(client, composed.ServiceId, composed.Body, cancellationToken).ConfigureAwait(false);
-            var notes = composed.Notes.ToList();
-            if (server is not null)
+            return new ReplayResult(input.Name, service.Id, status, body, composed.Notes)
             {
-                notes.AddRange(server.Log.Select(l => "FHIR server: " + l));
-            }
-
-            return new ReplayResult(input.Name, service.Id, status, body, notes);
+                Prefetch = composed.Body["prefetch"] as JsonObject,
+                PrefetchQueries = composed.PrefetchQueries,
+                FhirRequests = server?.Log.ToList() ?? [],
+            };
         }
         finally
         {

@@ -32,7 +32,7 @@ public sealed class CardAudit
         typeof(CardAudit).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "unknown";
 
     /// <summary>Builds the records of one response's cards.</summary>
-    public IReadOnlyList<IssuedCardRecord> Records(ServiceDefinition service, Guid hookInstance, string patientId, DateTimeOffset now, IReadOnlyList<IssuedCard> issued)
+    public IReadOnlyList<IssuedCardRecord> Records(ServiceDefinition service, Guid hookInstance, string patientId, DateTimeOffset now, IReadOnlyList<IssuedCard> issued, bool testTraffic = false)
     {
         ArgumentNullException.ThrowIfNull(service);
         ArgumentNullException.ThrowIfNull(issued);
@@ -56,10 +56,11 @@ public sealed class CardAudit
                 .ToList(),
             SuggestionUuids = card.SuggestionUuids,
             IssuedAt = now,
+            TestTraffic = testTraffic,
         }).ToList();
     }
 
-    /// <summary>Records one response's cards; completes once they are durably stored.</summary>
-    public Task RecordAsync(ServiceDefinition service, Guid hookInstance, string patientId, DateTimeOffset now, IReadOnlyList<IssuedCard> issued, CancellationToken cancellationToken)
-        => _store.RecordIssuedAsync(Records(service, hookInstance, patientId, now, issued), cancellationToken);
+    /// <summary>Records one response's cards (flagged when the request was marked as test traffic); completes once they are durably stored.</summary>
+    public Task RecordAsync(ServiceDefinition service, Guid hookInstance, string patientId, DateTimeOffset now, IReadOnlyList<IssuedCard> issued, bool testTraffic, CancellationToken cancellationToken)
+        => _store.RecordIssuedAsync(Records(service, hookInstance, patientId, now, issued, testTraffic), cancellationToken);
 }

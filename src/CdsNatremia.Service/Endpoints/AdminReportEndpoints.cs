@@ -11,8 +11,9 @@ using Microsoft.Extensions.Options;
 namespace CdsNatremia.Service.Endpoints;
 
 /// <summary>
-/// GET /admin/reports/overrides?from=YYYY-MM-DD&amp;to=YYYY-MM-DD[&amp;service=id]: the override report as JSON, for
-/// cards issued from the start of <c>from</c> to the end of <c>to</c> (UTC days, both included). Outside the CDS Hooks
+/// GET /admin/reports/overrides?from=YYYY-MM-DD&amp;to=YYYY-MM-DD[&amp;service=id][&amp;includeTest=true]: the override
+/// report as JSON, for cards issued from the start of <c>from</c> to the end of <c>to</c> (UTC days, both included);
+/// cards marked as test traffic are left out (and counted) unless <c>includeTest=true</c>. Outside the CDS Hooks
 /// paths on purpose (the standard defines every path under /cds-services). Protected by the configured admin key in
 /// the <c>X-Natremia-Admin-Key</c> header: no key configured → 403 for everyone; missing or wrong key → 401.
 /// </summary>
@@ -45,6 +46,7 @@ internal static class AdminReportEndpoints
         var from = Day(http.Query["from"], "from", problems);
         var to = Day(http.Query["to"], "to", problems);
         string? service = http.Query["service"];
+        var includeTest = IncludeTest(http.Query["includeTest"], problems);
         if (service is not null && catalog.Find(service) is null)
         {
             problems.Add($"'service': no CDS service has the id '{(service.Length <= 64 ? service : service[..64] + "…")}'.");
@@ -67,7 +69,7 @@ internal static class AdminReportEndpoints
             return Problems.Of(StatusCodes.Status400BadRequest, "Invalid report request", problems);
         }
 
-        var report = await store.ReportAsync(from.Value, to.Value.AddDays(1), service, cancellationToken).ConfigureAwait(false);
+        var report = await store.ReportAsync(from.Value, to.Value.AddDays(1), service, includeTest, cancellationToken).ConfigureAwait(false);
         return TypedResults.Ok(report);
     }
 
@@ -87,6 +89,20 @@ internal static class AdminReportEndpoints
         }
 
         return null;
+    }
+
+    private static bool IncludeTest(string? text, List<string> problems)
+    {
+        switch (text?.ToLowerInvariant())
+        {
+            case null or "" or "false":
+                return false;
+            case "true":
+                return true;
+            default:
+                problems.Add($"'includeTest' must be true or false (got '{(text.Length <= 32 ? text : text[..32] + "…")}').");
+                return false;
+        }
     }
 
     private static DateTimeOffset? Day(string? text, string name, List<string> problems)

@@ -52,7 +52,7 @@ internal static class HookEndpoints
                 case HookOutcome.Cards cards:
                     var (body, issued) = writer.Write(cards.Items, cards.PatientId, cards.Now);
                     // The audit record is committed before the answer leaves: no answered card without its record (docs/audit.md).
-                    if (!await AuditRecorded(audit, service, document.RootElement, cards, issued, cancellationToken).ConfigureAwait(false))
+                    if (!await AuditRecorded(audit, service, document.RootElement, cards, issued, TestTraffic.IsMarked(http), cancellationToken).ConfigureAwait(false))
                     {
                         return Problems.Of(StatusCodes.Status503ServiceUnavailable, "Audit trail unavailable", ["The cards could not be recorded in the audit trail, so none are shown; try again shortly."]);
                     }
@@ -65,13 +65,13 @@ internal static class HookEndpoints
         }
     }
 
-    private static async Task<bool> AuditRecorded(CardAudit audit, ServiceDefinition service, JsonElement root, HookOutcome.Cards cards, IReadOnlyList<IssuedCard> issued, CancellationToken cancellationToken)
+    private static async Task<bool> AuditRecorded(CardAudit audit, ServiceDefinition service, JsonElement root, HookOutcome.Cards cards, IReadOnlyList<IssuedCard> issued, bool testTraffic, CancellationToken cancellationToken)
     {
         try
         {
             // The parser has already validated hookInstance as a UUID.
             var hookInstance = root.GetProperty("hookInstance").GetGuid();
-            await audit.RecordAsync(service, hookInstance, cards.PatientId, cards.Now, issued, cancellationToken).ConfigureAwait(false);
+            await audit.RecordAsync(service, hookInstance, cards.PatientId, cards.Now, issued, testTraffic, cancellationToken).ConfigureAwait(false);
             return true;
         }
         catch (Exception ex) when (ex is System.Data.Common.DbException or IOException or TimeoutException)

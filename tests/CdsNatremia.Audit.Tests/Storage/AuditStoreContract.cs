@@ -32,8 +32,8 @@ public abstract class AuditStoreContract
     {
         await using var scope = await OpenAsync();
         await scope.Store.InitializeAsync(None);
-        Assert.Equal(1L, Convert.ToInt64(await scope.Store.QueryScalarAsync("SELECT COUNT(*) FROM schema_version", None), System.Globalization.CultureInfo.InvariantCulture));
-        Assert.Equal(1L, Convert.ToInt64(await scope.Store.QueryScalarAsync("SELECT MAX(version) FROM schema_version", None), System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal((long)AuditSchema.Migrations.Count, Convert.ToInt64(await scope.Store.QueryScalarAsync("SELECT COUNT(*) FROM schema_version", None), System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal((long)AuditSchema.CurrentVersion, Convert.ToInt64(await scope.Store.QueryScalarAsync("SELECT MAX(version) FROM schema_version", None), System.Globalization.CultureInfo.InvariantCulture));
     }
 
     [SkippableFact]
@@ -219,10 +219,45 @@ public abstract class AuditStoreContract
             Assert.IsType<FeedbackResult.Stored>(await scope.Store.RecordFeedbackAsync(service, [entry], Some.Now, None));
         }
 
-        var report = await scope.Store.ReportAsync(OverrideFixture.From, OverrideFixture.To, null, None);
+        var report = await scope.Store.ReportAsync(OverrideFixture.From, OverrideFixture.To, null, false, None);
 
         ReportExpectations.AllServices(report);
-        var chartOnly = await scope.Store.ReportAsync(OverrideFixture.From, OverrideFixture.To, Some.ServiceId, None);
+        var chartOnly = await scope.Store.ReportAsync(OverrideFixture.From, OverrideFixture.To, Some.ServiceId, false, None);
         ReportExpectations.ChartReviewOnly(chartOnly);
+    }
+
+    [SkippableFact]
+    public async Task FindCardAsync_TestTrafficCard_FlagKept()
+    {
+        await using var scope = await OpenAsync();
+        var test = Some.Card() with { TestTraffic = true };
+        var real = Some.Card();
+        await scope.Store.RecordIssuedAsync([test, real], None);
+
+        Assert.True((await scope.Store.FindCardAsync(test.CardUuid, None))!.TestTraffic);
+        Assert.False((await scope.Store.FindCardAsync(real.CardUuid, None))!.TestTraffic);
+    }
+
+    [SkippableFact]
+    public async Task ReportAsync_TestTrafficCards_LeftOutAndCountedUnlessIncluded()
+    {
+        await using var scope = await OpenAsync();
+        var real = Some.Card(issuedAt: OverrideFixture.From.AddDays(1));
+        var tests = Enumerable.Range(0, 3).Select(i => Some.Card(issuedAt: OverrideFixture.From.AddDays(1).AddMinutes(i)) with { TestTraffic = true }).ToList();
+        await scope.Store.RecordIssuedAsync([real, .. tests], None);
+        Assert.IsType<FeedbackResult.Stored>(await scope.Store.RecordFeedbackAsync(Some.ServiceId, [Some.Overridden(tests[0], "patient-declined")], Some.Now, None));
+
+        var report = await scope.Store.ReportAsync(OverrideFixture.From, OverrideFixture.To, null, false, None);
+        var withTests = await scope.Store.ReportAsync(OverrideFixture.From, OverrideFixture.To, null, true, None);
+
+        var rule = Assert.Single(report.Rules);
+        Assert.Equal(1, rule.Shown); // only the real card
+        Assert.Equal(0, rule.Overridden); // the override was of a test card
+        Assert.False(report.TestTrafficIncluded);
+        Assert.Equal(3L, report.TestCardsExcluded);
+        Assert.Equal(4, Assert.Single(withTests.Rules).Shown);
+        Assert.Equal(1, withTests.Rules[0].Overridden);
+        Assert.True(withTests.TestTrafficIncluded);
+        Assert.Equal(0L, withTests.TestCardsExcluded);
     }
 }

@@ -23,6 +23,43 @@ public sealed class SqliteAuditStoreTests : AuditStoreContract
     }
 
     [Fact]
+    public async Task InitializeAsync_TrailAtVersionOne_MigratedAndItsCardsCountAsRealTraffic()
+    {
+        var folder = NewFolder();
+        try
+        {
+            var card = Some.Card(issuedAt: OverrideFixture.From.AddDays(1));
+            await using (var old = new SqliteAuditStore(Path.Combine(folder, "audit.db")))
+            {
+                // The schema as version 1 left it, with one card written before test traffic was flagged.
+                await old.QueryScalarAsync(AuditSchema.VersionTable, None);
+                foreach (var statement in AuditSchema.Migrations[0].Statements)
+                {
+                    await old.QueryScalarAsync(statement, None);
+                }
+
+                await old.QueryScalarAsync("INSERT INTO schema_version (version, applied_at_ms) VALUES (1, 0)", None);
+                await old.QueryScalarAsync(
+                    "INSERT INTO issued_card (card_uuid, service_id, hook, hook_instance, patient_pseudonym, rule_ids, knowledge_version, software_version, indicator, topic, summary, resources_used, suggestion_uuids, issued_at_ms) "
+                    + $"VALUES ('{card.CardUuid:D}', '{card.ServiceId}', 'patient-view', '{card.HookInstance:D}', '{card.PatientPseudonym}', '[\"sodium.severity\"]', 'kb', 'sw', 'critical', 'sodium-assessment', 's', '[]', '{{}}', {card.IssuedAt.ToUnixTimeMilliseconds()})",
+                    None);
+                await old.QueryScalarAsync($"INSERT INTO card_rule (card_uuid, rule_id) VALUES ('{card.CardUuid:D}', 'sodium.severity')", None);
+            }
+
+            await using var store = new SqliteAuditStore(Path.Combine(folder, "audit.db"));
+            await store.InitializeAsync(None);
+
+            Assert.Equal((long)AuditSchema.CurrentVersion, await store.QueryScalarAsync("SELECT MAX(version) FROM schema_version", None));
+            Assert.False((await store.FindCardAsync(card.CardUuid, None))!.TestTraffic);
+            Assert.Equal(1, Assert.Single((await store.ReportAsync(OverrideFixture.From, OverrideFixture.To, null, false, None)).Rules).Shown);
+        }
+        finally
+        {
+            TryDelete(folder);
+        }
+    }
+
+    [Fact]
     public async Task InitializeAsync_NewFile_WriteAheadLogMode()
     {
         await using var scope = await OpenAsync();

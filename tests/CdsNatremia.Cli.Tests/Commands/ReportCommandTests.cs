@@ -52,6 +52,23 @@ public sealed class ReportCommandTests : IDisposable
         => Assert.Equal(ExitCodes.Usage, await Program.Main(["report", "--url", _server.Url!, "--admin-key", "k", "--from", "1 March"]));
 
     [Fact]
+    public async Task Report_FromAfterTo_UsageErrorWithoutAsking()
+    {
+        Assert.Equal(ExitCodes.Usage, await Program.Main(["report", "--url", _server.Url!, "--admin-key", "right-key", "--from", "2026-03-31", "--to", "2026-03-01"]));
+        Assert.Empty(_server.LogEntries); // refused locally, no problem JSON from the service
+    }
+
+    [Theory]
+    [InlineData(false)]
+    [InlineData(true)]
+    public async Task Report_IncludeTest_AsksForTestTrafficOnlyWhenGiven(bool include)
+    {
+        string[] args = ["report", "--url", _server.Url!, "--admin-key", "right-key", "--from", "2026-03-01", "--to", "2026-03-31"];
+        Assert.Equal(ExitCodes.Ok, await Program.Main(include ? [.. args, "--include-test"] : args));
+        Assert.Equal(include, Assert.Single(_server.LogEntries).RequestMessage.Url.Contains("includeTest=true", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public async Task Report_NonLoopbackHostWithoutAllowHost_Refused()
         => Assert.Equal(ExitCodes.Unreachable, await Program.Main(["report", "--url", "http://192.0.2.10:5080", "--admin-key", "k"]));
 

@@ -43,6 +43,10 @@ public class ConformanceCheckerTests(NatremiaFactory factory) : IClassFixture<Na
         Assert.True(report.Passed, string.Join("\n", report.Violations.Select(v => $"{v.Rule} {v.Where} {v.Found}")));
         Assert.Equal(4, report.ServicesChecked);
         Assert.True(report.RequestsSent >= 24 + 4);
+        // The evidence: every rule listed with what was checked; the scenario set exercises all but links.
+        Assert.Equal(ConformanceRules.Text.Keys, report.Rules.Select(r => r.Rule));
+        Assert.All(report.Rules.Where(r => r.Rule != "link.fields"), r => Assert.True(r.Result == "pass" && r.Checks > 0, $"{r.Rule}: {r.Result}, {r.Checks} checks"));
+        Assert.Equal(report.RequestsSent, report.Rules.Single(r => r.Rule == "response.status").Checks + report.Rules.Single(r => r.Rule == "prefetch.412").Checks);
     }
 
     [Fact]
@@ -73,6 +77,8 @@ public class ConformanceCheckerTests(NatremiaFactory factory) : IClassFixture<Na
             "action.type", "action.description", "overrideReason.display", "link.fields", "response.empty-values", "prefetch.412",
         ];
         Assert.All(planted, rule => Assert.Contains(rule, rules));
+        Assert.All(report.Rules.Where(r => planted.Contains(r.Rule)), r => Assert.Equal("fail", r.Result));
+        Assert.All(report.Rules, r => Assert.True(r.Violations <= r.Checks, $"{r.Rule}: {r.Violations} violations in {r.Checks} checks"));
         Assert.False(report.Passed);
         Assert.All(report.Violations, v => Assert.Equal(ConformanceRules.Text[v.Rule], v.Requirement));
     }

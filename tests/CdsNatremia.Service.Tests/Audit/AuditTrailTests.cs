@@ -153,7 +153,7 @@ public sealed class AuditTrailTests
 
         public Task<IReadOnlyList<FeedbackEntry>> FindFeedbackAsync(Guid cardUuid, CancellationToken cancellationToken) => throw new UnavailableException();
 
-        public Task<OverrideReport> ReportAsync(DateTimeOffset from, DateTimeOffset to, string? serviceId, CancellationToken cancellationToken) => throw new UnavailableException();
+        public Task<OverrideReport> ReportAsync(DateTimeOffset from, DateTimeOffset to, string? serviceId, bool includeTestTraffic, CancellationToken cancellationToken) => throw new UnavailableException();
 
         public Task<int> PurgeAsync(DateTimeOffset issuedBefore, CancellationToken cancellationToken) => Task.FromResult(0);
 
