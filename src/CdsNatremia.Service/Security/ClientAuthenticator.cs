@@ -90,6 +90,11 @@ internal sealed class ClientAuthenticator
             return ClientAuthenticationResult.Refused($"header typ is '{LogText.Clip(jwt.Typ, 16)}', not JWT");
         }
 
+        if (CriticalHeaderProblem(jwt) is { } critical)
+        {
+            return ClientAuthenticationResult.Refused(critical);
+        }
+
         var issuer = SafeClaim(jwt, "iss");
         if (issuer is null || !_clients.TryGetValue(issuer, out var trusted))
         {
@@ -124,6 +129,12 @@ internal sealed class ClientAuthenticator
         if (!validation.IsValid)
         {
             return ClientAuthenticationResult.Refused($"iss '{LogText.Clip(issuer)}' kid '{LogText.Clip(jwt.Kid, 64)}': {Describe(validation.Exception, audience)}");
+        }
+
+        // The library accepts an aud array that merely contains the URL; CDS Hooks tokens are for this service alone.
+        if (jwt.Audiences.Count() != 1)
+        {
+            return ClientAuthenticationResult.Refused($"iss '{LogText.Clip(issuer)}': aud is an array of {jwt.Audiences.Count()} values; only the URL called ({audience}) is accepted, alone");
         }
 
         var now = _time.GetUtcNow();
@@ -224,6 +235,24 @@ internal sealed class ClientAuthenticator
         return keys.FirstOrDefault(k => string.Equals(k.Kid, jwt.Kid, StringComparison.Ordinal)
             && string.Equals(k.Kty, kty, StringComparison.Ordinal)
             && (string.IsNullOrEmpty(k.Use) || k.Use == JsonWebKeyUseNames.Sig));
+    }
+
+    /// <summary>
+    /// RFC 7515 §4.1.11: a "crit" header lists extensions the recipient must understand or refuse the token. This
+    /// service understands no JWS extension, so any "crit" member (also an empty or malformed one) is refused.
+    /// </summary>
+    private static string? CriticalHeaderProblem(JsonWebToken jwt)
+    {
+        using var header = JsonDocument.Parse(Base64UrlEncoder.Decode(jwt.EncodedHeader));
+        if (!header.RootElement.TryGetProperty("crit", out var crit))
+        {
+            return null;
+        }
+
+        var names = crit.ValueKind == JsonValueKind.Array
+            ? string.Join(", ", crit.EnumerateArray().Take(5).Select(e => LogText.Clip(e.ValueKind == JsonValueKind.String ? e.GetString() : e.ToString(), 32)))
+            : "not an array";
+        return $"header crit ({names}) names extensions this service does not understand (RFC 7515 §4.1.11)";
     }
 
     private static string? SafeClaim(JsonWebToken jwt, string name)
