@@ -18,18 +18,18 @@ internal sealed class ClientAuthenticator
 
     private readonly ClientAuthenticationOptions _options;
     private readonly JwksSource _jwks;
-    private readonly TokenReplayCache _replay;
+    private readonly ITokenReplayStore _replay;
     private readonly TimeProvider _time;
     private readonly JsonWebTokenHandler _handler = new();
     private readonly Dictionary<string, (TrustedClientOptions Client, IReadOnlyList<JsonWebKey>? InlineKeys)> _clients;
     private readonly IReadOnlyList<string> _algorithms;
 
-    public ClientAuthenticator(IOptions<ClientAuthenticationOptions> options, JwksSource jwks, TimeProvider time)
+    public ClientAuthenticator(IOptions<ClientAuthenticationOptions> options, JwksSource jwks, TimeProvider time, ITokenReplayStore replay)
     {
         _options = options.Value;
         _jwks = jwks;
         _time = time;
-        _replay = new TokenReplayCache(_options.ReplayCacheCapacity);
+        _replay = replay;
         _algorithms = _options.EffectiveAlgorithms;
         _clients = _options.TrustedClients.ToDictionary(
             c => c.Issuer,
@@ -171,7 +171,17 @@ internal sealed class ClientAuthenticator
             return ClientAuthenticationResult.Refused($"iss '{LogText.Clip(issuer)}': jti is missing or longer than {MaxJtiLength} characters");
         }
 
-        switch (_replay.TryUse(issuer, jti, expires + skew, now))
+        ReplayCheck replay;
+        try
+        {
+            replay = await _replay.TryUseAsync(issuer, jti, expires + skew, now, cancellationToken).ConfigureAwait(false);
+        }
+        catch (ReplayStoreUnavailableException ex)
+        {
+            return new ClientAuthenticationResult { Status = StatusCodes.Status503ServiceUnavailable, LogReason = $"iss '{LogText.Clip(issuer)}': {ex.Message}" };
+        }
+
+        switch (replay)
         {
             case ReplayCheck.Replayed:
                 return ClientAuthenticationResult.Refused($"iss '{LogText.Clip(issuer)}': jti '{LogText.Clip(jti, 64)}' was already used (replay)");
@@ -179,7 +189,8 @@ internal sealed class ClientAuthenticator
                 return new ClientAuthenticationResult
                 {
                     Status = StatusCodes.Status503ServiceUnavailable,
-                    LogReason = $"replay cache full ({_options.ReplayCacheCapacity} unexpired token ids); raise ReplayCacheCapacity or lower MaxTokenLifetimeSeconds",
+                    LogReason = $"iss '{LogText.Clip(issuer)}': this client's replay cache is full ({_options.ReplayCacheCapacity} unexpired token ids); "
+                        + "other clients are not affected; lower its request rate (Natremia:RateLimiting) or raise ReplayCacheCapacity",
                 };
             default:
                 return ClientAuthenticationResult.Accepted(issuer);
