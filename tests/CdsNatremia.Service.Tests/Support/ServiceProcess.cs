@@ -74,6 +74,7 @@ public sealed class ServiceProcess : IAsyncDisposable
         start.Environment["ASPNETCORE_ENVIRONMENT"] = environment;
         start.Environment["DOTNET_ENVIRONMENT"] = environment;
         start.Environment["ASPNETCORE_URLS"] = $"http://127.0.0.1:{port}";
+        start.Environment["Urls"] = $"http://127.0.0.1:{port}"; // appsettings.json sets Urls; the environment wins over it
         start.Environment["Natremia__Audit__DataDirectory"] = data;
         start.Environment["DOTNET_NOLOGO"] = "1";
         foreach (var (key, value) in settings)
