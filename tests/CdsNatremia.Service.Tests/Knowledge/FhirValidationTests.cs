@@ -25,7 +25,9 @@ public sealed class FhirValidationTests(FhirValidationFixture fhir, NatremiaFact
         var warnings = new List<string>();
         foreach (var (path, resource) in fhir.Knowledge)
         {
+            var one = Stopwatch.StartNew();
             var (e, w) = fhir.Validate(resource, path);
+            output.WriteLine($"{path}: {one.Elapsed.TotalSeconds:F2} s");
             errors.AddRange(e);
             warnings.AddRange(w);
         }
