@@ -35,6 +35,12 @@ public sealed class AuditOptions
     public string? PseudonymKey { get; set; }
 
     /// <summary>
+    /// Keys used before a rotation, kept so one patient's older records can still be found (they make no new
+    /// pseudonym). Every record stores the id of the key that made its pseudonym. Default: none.
+    /// </summary>
+    public IList<string> PreviousPseudonymKeys { get; } = [];
+
+    /// <summary>
     /// Days an issued-card record and its feedback are kept before the purge deletes them. Default 730 (two years),
     /// a neutral starting point: each site sets its own records-retention period.
     /// </summary>

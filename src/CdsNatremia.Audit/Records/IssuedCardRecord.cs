@@ -21,6 +21,9 @@ public sealed record IssuedCardRecord
     /// <summary>HMAC-SHA256 of the patient id (lowercase hex); never the id itself.</summary>
     public required string PatientPseudonym { get; init; }
 
+    /// <summary>The id of the key that made <see cref="PatientPseudonym"/> (empty for records made before key ids were kept).</summary>
+    public string PseudonymKeyId { get; init; } = string.Empty;
+
     /// <summary>The rule ids that produced the card.</summary>
     public required IReadOnlyList<string> RuleIds { get; init; }
 

@@ -57,6 +57,19 @@ internal static class AuditSchema
         [
             "ALTER TABLE issued_card ADD COLUMN test_traffic INTEGER NOT NULL DEFAULT 0",
         ]),
+
+        (3,
+        [
+            // Which pseudonym key made each pseudonym (records from before this version keep '' = unknown key), and a
+            // look-up of one patient's cards across key rotations.
+            "ALTER TABLE issued_card ADD COLUMN pseudonym_key_id TEXT NOT NULL DEFAULT ''",
+            "CREATE INDEX ix_issued_card_patient ON issued_card (patient_pseudonym)",
+
+            // Token ids (jti) already used, shared by every instance on PostgreSQL (unused on SQLite, whose single
+            // process keeps them in memory); a row is deleted once its token has expired.
+            "CREATE TABLE used_token (issuer TEXT NOT NULL, jti TEXT NOT NULL, expires_at_ms BIGINT NOT NULL, PRIMARY KEY (issuer, jti))",
+            "CREATE INDEX ix_used_token_expires ON used_token (expires_at_ms)",
+        ]),
     ];
 
     public static int CurrentVersion => Migrations[^1].Version;

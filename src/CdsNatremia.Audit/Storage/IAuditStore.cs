@@ -29,6 +29,13 @@ public interface IAuditStore : IAsyncDisposable
     /// <summary>The record of a card, or null when unknown or purged.</summary>
     Task<IssuedCardRecord?> FindCardAsync(Guid cardUuid, CancellationToken cancellationToken);
 
+    /// <summary>
+    /// The cards issued for one patient, given the patient's pseudonym under every known key with each key's id
+    /// (<see cref="Pseudonyms.PatientPseudonymizer.AllPseudonyms"/>), so a look-up spans key rotations. Oldest first.
+    /// </summary>
+    Task<IReadOnlyList<IssuedCardRecord>> FindCardsOfPatientAsync(IReadOnlyList<Pseudonyms.KeyedPseudonym> pseudonyms, CancellationToken cancellationToken)
+        => throw new NotSupportedException($"{GetType().Name} cannot look up a patient's cards.");
+
     /// <summary>The feedback stored for a card, oldest outcome first.</summary>
     Task<IReadOnlyList<FeedbackEntry>> FindFeedbackAsync(Guid cardUuid, CancellationToken cancellationToken);
 

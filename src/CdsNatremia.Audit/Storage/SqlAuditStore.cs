@@ -88,8 +88,8 @@ public abstract class SqlAuditStore : IAuditStore
                 await ExecuteAsync(connection, transaction,
                     """
                     INSERT INTO issued_card (card_uuid, service_id, hook, hook_instance, patient_pseudonym, rule_ids, knowledge_version,
-                        software_version, indicator, topic, summary, resources_used, suggestion_uuids, issued_at_ms, test_traffic)
-                    VALUES (@card, @service, @hook, @instance, @patient, @rules, @knowledge, @software, @indicator, @topic, @summary, @resources, @suggestions, @at, @test)
+                        software_version, indicator, topic, summary, resources_used, suggestion_uuids, issued_at_ms, test_traffic, pseudonym_key_id)
+                    VALUES (@card, @service, @hook, @instance, @patient, @rules, @knowledge, @software, @indicator, @topic, @summary, @resources, @suggestions, @at, @test, @keyid)
                     """,
                     cancellationToken,
                     ("@card", uuid), ("@service", card.ServiceId), ("@hook", card.Hook), ("@instance", Id(card.HookInstance)),
@@ -97,7 +97,7 @@ public abstract class SqlAuditStore : IAuditStore
                     ("@knowledge", card.KnowledgeVersion), ("@software", card.SoftwareVersion), ("@indicator", card.Indicator),
                     ("@topic", card.Topic), ("@summary", card.Summary), ("@resources", JsonSerializer.Serialize(card.ResourcesUsed, Json)),
                     ("@suggestions", JsonSerializer.Serialize(card.SuggestionUuids.ToDictionary(s => s.Key, s => Id(s.Value)), Json)),
-                    ("@at", card.IssuedAt.ToUnixTimeMilliseconds()), ("@test", card.TestTraffic ? 1 : 0)).ConfigureAwait(false);
+                    ("@at", card.IssuedAt.ToUnixTimeMilliseconds()), ("@test", card.TestTraffic ? 1 : 0), ("@keyid", card.PseudonymKeyId)).ConfigureAwait(false);
                 foreach (var rule in card.RuleIds.Distinct(StringComparer.Ordinal))
                 {
                     await ExecuteAsync(connection, transaction, "INSERT INTO card_rule (card_uuid, rule_id) VALUES (@card, @rule)", cancellationToken,
@@ -188,43 +188,63 @@ public abstract class SqlAuditStore : IAuditStore
         }, cancellationToken);
     }
 
+    private const string CardColumns =
+        """
+        card_uuid, service_id, hook, hook_instance, patient_pseudonym, rule_ids, knowledge_version, software_version,
+            indicator, topic, summary, resources_used, suggestion_uuids, issued_at_ms, pseudonym_key_id, test_traffic
+        """;
+
     /// <inheritdoc />
     public async Task<IssuedCardRecord?> FindCardAsync(Guid cardUuid, CancellationToken cancellationToken)
     {
         await using var connection = await OpenAsync(cancellationToken).ConfigureAwait(false);
-        await using var command = Command(connection, null,
-            """
-            SELECT card_uuid, service_id, hook, hook_instance, patient_pseudonym, rule_ids, knowledge_version, software_version,
-                indicator, topic, summary, resources_used, suggestion_uuids, issued_at_ms, test_traffic
-            FROM issued_card WHERE card_uuid = @card
-            """,
-            ("@card", Id(cardUuid)));
+        await using var command = Command(connection, null, $"SELECT {CardColumns} FROM issued_card WHERE card_uuid = @card", ("@card", Id(cardUuid)));
         await using var reader = await command.ExecuteReaderAsync(cancellationToken).ConfigureAwait(false);
-        if (!await reader.ReadAsync(cancellationToken).ConfigureAwait(false))
+        return await reader.ReadAsync(cancellationToken).ConfigureAwait(false) ? ReadCard(reader) : null;
+    }
+
+    /// <inheritdoc />
+    public async Task<IReadOnlyList<IssuedCardRecord>> FindCardsOfPatientAsync(IReadOnlyList<Pseudonyms.KeyedPseudonym> pseudonyms, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(pseudonyms);
+        var result = new List<IssuedCardRecord>();
+        await using var connection = await OpenAsync(cancellationToken).ConfigureAwait(false);
+        foreach (var pseudonym in pseudonyms.Distinct())
         {
-            return null;
+            // A record made before key ids were kept ('') matches on the pseudonym alone.
+            await using var command = Command(connection, null,
+                $"SELECT {CardColumns} FROM issued_card WHERE patient_pseudonym = @p AND (pseudonym_key_id = @k OR pseudonym_key_id = '') ORDER BY issued_at_ms, card_uuid",
+                ("@p", pseudonym.Pseudonym), ("@k", pseudonym.KeyId));
+            await using var reader = await command.ExecuteReaderAsync(cancellationToken).ConfigureAwait(false);
+            while (await reader.ReadAsync(cancellationToken).ConfigureAwait(false))
+            {
+                result.Add(ReadCard(reader));
+            }
         }
 
-        return new IssuedCardRecord
-        {
-            CardUuid = Guid.Parse(reader.GetString(0)),
-            ServiceId = reader.GetString(1),
-            Hook = reader.GetString(2),
-            HookInstance = Guid.Parse(reader.GetString(3)),
-            PatientPseudonym = reader.GetString(4),
-            RuleIds = JsonSerializer.Deserialize<List<string>>(reader.GetString(5), Json) ?? [],
-            KnowledgeVersion = reader.GetString(6),
-            SoftwareVersion = reader.GetString(7),
-            Indicator = reader.GetString(8),
-            Topic = reader.GetString(9),
-            Summary = reader.GetString(10),
-            ResourcesUsed = JsonSerializer.Deserialize<List<string>>(reader.GetString(11), Json) ?? [],
-            SuggestionUuids = (JsonSerializer.Deserialize<Dictionary<string, string>>(reader.GetString(12), Json) ?? [])
-                .ToDictionary(s => s.Key, s => Guid.Parse(s.Value), StringComparer.Ordinal),
-            IssuedAt = DateTimeOffset.FromUnixTimeMilliseconds(reader.GetInt64(13)),
-            TestTraffic = Convert.ToInt64(reader.GetValue(14), System.Globalization.CultureInfo.InvariantCulture) != 0,
-        };
+        return result.DistinctBy(c => c.CardUuid).OrderBy(c => c.IssuedAt).ThenBy(c => c.CardUuid).ToList();
     }
+
+    private static IssuedCardRecord ReadCard(DbDataReader reader) => new()
+    {
+        CardUuid = Guid.Parse(reader.GetString(0)),
+        ServiceId = reader.GetString(1),
+        Hook = reader.GetString(2),
+        HookInstance = Guid.Parse(reader.GetString(3)),
+        PatientPseudonym = reader.GetString(4),
+        RuleIds = JsonSerializer.Deserialize<List<string>>(reader.GetString(5), Json) ?? [],
+        KnowledgeVersion = reader.GetString(6),
+        SoftwareVersion = reader.GetString(7),
+        Indicator = reader.GetString(8),
+        Topic = reader.GetString(9),
+        Summary = reader.GetString(10),
+        ResourcesUsed = JsonSerializer.Deserialize<List<string>>(reader.GetString(11), Json) ?? [],
+        SuggestionUuids = (JsonSerializer.Deserialize<Dictionary<string, string>>(reader.GetString(12), Json) ?? [])
+            .ToDictionary(s => s.Key, s => Guid.Parse(s.Value), StringComparer.Ordinal),
+        IssuedAt = DateTimeOffset.FromUnixTimeMilliseconds(reader.GetInt64(13)),
+        PseudonymKeyId = reader.GetString(14),
+        TestTraffic = Convert.ToInt64(reader.GetValue(15), System.Globalization.CultureInfo.InvariantCulture) != 0,
+    };
 
     /// <inheritdoc />
     public async Task<IReadOnlyList<FeedbackEntry>> FindFeedbackAsync(Guid cardUuid, CancellationToken cancellationToken)

@@ -7,7 +7,7 @@ namespace CdsNatremia.Audit.Storage;
 /// The embedded store: one SQLite file in write-ahead-log mode with <c>synchronous=FULL</c>, so a committed write is
 /// on disk (the log is flushed at every commit) before the answer leaves. Writers of this process queue on one gate
 /// (SQLite allows one writer at a time; queuing here is cheaper than retrying on SQLITE_BUSY); other processes on the
-/// same file wait through the busy timeout.
+/// same file wait through the busy timeout. The folder is 0700 and the files 0600 (<see cref="PrivateFiles"/>).
 /// </summary>
 public sealed class SqliteAuditStore : SqlAuditStore
 {
@@ -19,7 +19,7 @@ public sealed class SqliteAuditStore : SqlAuditStore
     {
         ArgumentException.ThrowIfNullOrEmpty(path);
         Path = System.IO.Path.GetFullPath(path);
-        Directory.CreateDirectory(System.IO.Path.GetDirectoryName(Path)!);
+        PrivateFiles.EnsureFolder(System.IO.Path.GetDirectoryName(Path)!);
         _connectionString = new SqliteConnectionStringBuilder
         {
             DataSource = Path,
@@ -42,6 +42,14 @@ public sealed class SqliteAuditStore : SqlAuditStore
     /// <inheritdoc />
     public override async Task InitializeAsync(CancellationToken cancellationToken)
     {
+        // Created empty with mode 0600 before SQLite opens it: SQLite gives its -wal and -shm files the database
+        // file's permissions, so the whole audit stays readable by the owner only.
+        PrivateFiles.EnsureFile(Path);
+        foreach (var suffix in new[] { "-wal", "-shm", "-journal" })
+        {
+            PrivateFiles.RestrictFile(Path + suffix);
+        }
+
         await using (var connection = await OpenAsync(cancellationToken).ConfigureAwait(false))
         {
             // The journal mode is kept in the file: set once, every later connection uses the write-ahead log.

@@ -7,4 +7,5 @@ namespace CdsNatremia.Fhir.Knowledge;
 /// <param name="Base">The code sets.</param>
 /// <param name="CodeSystems">Code systems by id, each as its list of codes with displays.</param>
 /// <param name="Directory">Where they were loaded from.</param>
-public sealed record LoadedKnowledge(KnowledgeBase Base, IReadOnlyDictionary<string, IReadOnlyList<CodeRef>> CodeSystems, string Directory);
+/// <param name="ManifestVersion">The version of the knowledge manifest the files were checked against, when they were.</param>
+public sealed record LoadedKnowledge(KnowledgeBase Base, IReadOnlyDictionary<string, IReadOnlyList<CodeRef>> CodeSystems, string Directory, string? ManifestVersion = null);

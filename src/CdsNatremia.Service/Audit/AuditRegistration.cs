@@ -22,7 +22,8 @@ public static class AuditRegistration
         var dataDirectory = AuditStoreFactory.DataDirectory(options, contentRoot);
         var key = PseudonymKeySource.Resolve(options.PseudonymKey, builder.Environment.IsDevelopment(), dataDirectory);
 
-        builder.Services.AddSingleton(new PatientPseudonymizer(key));
+        var previous = PseudonymKeySource.ResolvePrevious(options.PreviousPseudonymKeys);
+        builder.Services.AddSingleton(new PatientPseudonymizer(key, previous));
         builder.Services.AddSingleton(_ => AuditStoreFactory.Create(options, contentRoot));
         builder.Services.AddSingleton<CardAudit>();
         builder.Services.AddHostedService<AuditStartup>();

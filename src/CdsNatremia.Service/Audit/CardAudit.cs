@@ -45,6 +45,7 @@ public sealed class CardAudit
             Hook = service.Hook,
             HookInstance = hookInstance,
             PatientPseudonym = pseudonym,
+            PseudonymKeyId = _pseudonymizer.KeyId,
             RuleIds = card.Card.RuleIds,
             KnowledgeVersion = _knowledge.Base.Version,
             SoftwareVersion = SoftwareVersion,

@@ -39,7 +39,10 @@ public static class ServiceRegistration
         var directory = KnowledgeDirectory.Resolve(
             builder.Configuration[NatremiaServiceOptions.Section + ":" + nameof(NatremiaServiceOptions.KnowledgeDirectory)],
             builder.Environment.ContentRootPath);
+        // Each file is checked first (a bad edit names its file and problem), then the whole set against the manifest
+        // (a missing, unlisted or other-version file stops the start).
         var knowledge = KnowledgeLoader.Load(directory);
+        knowledge = knowledge with { ManifestVersion = KnowledgeManifest.Verify(directory).Version };
         services.AddSingleton(knowledge);
         services.AddSingleton(new KnowledgeState { Current = knowledge });
         services.AddSingleton(sp => new DecisionEngine(

@@ -15,8 +15,8 @@ internal static class HealthEndpoints
 
     public static Results<Ok<ReadyBody>, JsonHttpResult<ReadyBody>> Ready(KnowledgeState knowledge)
         => knowledge.Current is { } loaded
-            ? TypedResults.Ok(new ReadyBody("ready", loaded.Base.Version, loaded.Base.Sets.Count))
-            : TypedResults.Json(new ReadyBody("loading", null, 0), statusCode: StatusCodes.Status503ServiceUnavailable);
+            ? TypedResults.Ok(new ReadyBody("ready", loaded.Base.Version, loaded.Base.Sets.Count, loaded.ManifestVersion))
+            : TypedResults.Json(new ReadyBody("loading", null, 0, null), statusCode: StatusCodes.Status503ServiceUnavailable);
 
-    public sealed record ReadyBody(string Status, string? KnowledgeVersion, int CodeSets);
+    public sealed record ReadyBody(string Status, string? KnowledgeVersion, int CodeSets, string? KnowledgeManifestVersion);
 }

@@ -19,6 +19,7 @@ public static class FetchingRegistration
         ArgumentNullException.ThrowIfNull(services);
         ArgumentNullException.ThrowIfNull(configuration);
         services.AddOptions<FhirFetchOptions>().Bind(configuration.GetSection(FhirFetchOptions.Section)).ValidateDataAnnotations().ValidateOnStart();
+        services.AddSingleton<Microsoft.Extensions.Options.IValidateOptions<FhirFetchOptions>, FhirFetchOptionsValidator>();
         services.TryAddKeyedSingleton(ClockKey, TimeProvider.System);
         services.TryAddSingleton<FhirServerAllowlist>();
         services.TryAddSingleton<FhirResiliencePipelines>();

@@ -11,6 +11,13 @@ public enum ContextFieldKind
     Bundle,
     /// <summary>An array of strings.</summary>
     StringArray,
+    /// <summary>
+    /// The current user as a FHIR relative reference "[ResourceType]/[id]" of a Practitioner, PractitionerRole,
+    /// Patient or RelatedPerson (CDS Hooks 2.0, context.userId).
+    /// </summary>
+    UserReference,
+    /// <summary>An array of FHIR relative references "[ResourceType]/[id]" (e.g. order-select's selections).</summary>
+    ReferenceArray,
 }
 
 /// <summary>One field of a hook's context, as the hook's definition documents it.</summary>

@@ -49,8 +49,16 @@ public sealed class HookHandler
                 continue;
             }
 
+            var required = service.RequiredKeys.Contains(key, StringComparer.Ordinal);
             var value = _bundles.Read(key, raw, DataOrigin.Prefetch);
-            if (value.Kind == PrefetchValueKind.Failed)
+            if (PrefetchTemplateCheck.Problem(key, raw) is { } mismatch)
+            {
+                // Not what the template asks for: a required key is treated as absent (fetched when a FHIR server is
+                // given, else 412 with this reason); an optional one is listed as not usable.
+                value = new PrefetchValue(key, PrefetchValueKind.Unusable, [], [$"prefetch '{key}' {mismatch}; not used"]);
+            }
+
+            if (value.Kind == PrefetchValueKind.Failed || (required && value.Kind == PrefetchValueKind.Unusable))
             {
                 toFetch.Add(key);
             }

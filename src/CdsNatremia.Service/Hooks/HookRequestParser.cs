@@ -119,6 +119,9 @@ public static partial class HookRequestParser
                 ContextFieldKind.Bundle => value.ValueKind == JsonValueKind.Object
                     && value.TryGetProperty("resourceType", out var rt) && rt.ValueKind == JsonValueKind.String && rt.GetString() == "Bundle",
                 ContextFieldKind.StringArray => value.ValueKind == JsonValueKind.Array && value.EnumerateArray().All(e => e.ValueKind == JsonValueKind.String),
+                ContextFieldKind.UserReference => value.ValueKind == JsonValueKind.String && IsReference(value.GetString()!, UserTypes),
+                ContextFieldKind.ReferenceArray => value.ValueKind == JsonValueKind.Array && value.GetArrayLength() is > 0 and <= MaxReferences
+                    && value.EnumerateArray().All(e => e.ValueKind == JsonValueKind.String && IsReference(e.GetString()!, null)),
                 _ => false,
             };
             if (!ok)
@@ -128,6 +131,8 @@ public static partial class HookRequestParser
                     ContextFieldKind.FhirId => $"'context.{field.Name}' must be a FHIR id (1–64 letters, digits, '-' or '.').",
                     ContextFieldKind.Bundle => $"'context.{field.Name}' must be a FHIR Bundle.",
                     ContextFieldKind.StringArray => $"'context.{field.Name}' must be an array of strings.",
+                    ContextFieldKind.UserReference => $"'context.{field.Name}' must be a FHIR reference to the user, [ResourceType]/[id] with type Practitioner, PractitionerRole, Patient or RelatedPerson and an id of 1–64 letters, digits, '-' or '.' (at most {MaxReferenceLength} characters).",
+                    ContextFieldKind.ReferenceArray => $"'context.{field.Name}' must be an array of 1–{MaxReferences} FHIR references, each [ResourceType]/[id] with an id of 1–64 letters, digits, '-' or '.' (at most {MaxReferenceLength} characters).",
                     _ => $"'context.{field.Name}' must be a non-empty string.",
                 });
             }
@@ -177,8 +182,30 @@ public static partial class HookRequestParser
         return null;
     }
 
+    /// <summary>Longest reference accepted: a 64-character type name, '/', a 64-character id (FHIR id length).</summary>
+    private const int MaxReferenceLength = 129;
+
+    /// <summary>Most references accepted in one array field.</summary>
+    private const int MaxReferences = 200;
+
+    private static readonly HashSet<string> UserTypes = new(StringComparer.Ordinal) { "Practitioner", "PractitionerRole", "Patient", "RelatedPerson" };
+
+    /// <summary>A FHIR relative reference "[ResourceType]/[id]" (FHIR R4 §2.3.0 Literal references; id per the id datatype).</summary>
+    private static bool IsReference(string text, HashSet<string>? types)
+    {
+        if (text.Length > MaxReferenceLength || !Reference().IsMatch(text))
+        {
+            return false;
+        }
+
+        return types is null || types.Contains(text[..text.IndexOf('/', StringComparison.Ordinal)]);
+    }
+
     private static string Clip(string text) => text.Length <= 80 ? text : text[..80] + "…";
 
     [GeneratedRegex("^[A-Za-z0-9\\-\\.]{1,64}$", RegexOptions.CultureInvariant)]
     private static partial Regex FhirId();
+
+    [GeneratedRegex("^[A-Z][A-Za-z]{0,63}/[A-Za-z0-9\\-\\.]{1,64}$", RegexOptions.CultureInvariant)]
+    private static partial Regex Reference();
 }

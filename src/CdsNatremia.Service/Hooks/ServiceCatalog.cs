@@ -38,7 +38,7 @@ public sealed class ServiceCatalog
                 Kind = HookKind.PatientView,
                 Title = "Low sodium review on chart opening",
                 Description = "Assesses the patient's latest sodium: severity, work-up with the data used and what is missing, likely drug causes, and correction-rate safety. No card when sodium is normal.",
-                Context = [new("userId", true, ContextFieldKind.String), new("patientId", true, ContextFieldKind.FhirId), new("encounterId", false, ContextFieldKind.FhirId)],
+                Context = [new("userId", true, ContextFieldKind.UserReference), new("patientId", true, ContextFieldKind.FhirId), new("encounterId", false, ContextFieldKind.FhirId)],
                 PrefetchKeys = AllKeys,
                 RequiredKeys = Required,
             },
@@ -51,7 +51,7 @@ public sealed class ServiceCatalog
                 Description = "Runs when new laboratory results arrive: reassesses a low sodium and watches the correction rate. Organisation-specific hook; see docs/result-hook.md.",
                 Context =
                 [
-                    new("userId", false, ContextFieldKind.String), new("patientId", true, ContextFieldKind.FhirId),
+                    new("userId", false, ContextFieldKind.UserReference), new("patientId", true, ContextFieldKind.FhirId),
                     new("encounterId", false, ContextFieldKind.FhirId), new("results", true, ContextFieldKind.Bundle),
                 ],
                 PrefetchKeys = AllKeys,
@@ -66,8 +66,8 @@ public sealed class ServiceCatalog
                 Description = "When a prescriber selects orders: warns when a selected drug is a likely cause of low sodium, and predicts the sodium change of intravenous sodium chloride orders.",
                 Context =
                 [
-                    new("userId", true, ContextFieldKind.String), new("patientId", true, ContextFieldKind.FhirId), new("encounterId", false, ContextFieldKind.FhirId),
-                    new("selections", true, ContextFieldKind.StringArray), new("draftOrders", true, ContextFieldKind.Bundle),
+                    new("userId", true, ContextFieldKind.UserReference), new("patientId", true, ContextFieldKind.FhirId), new("encounterId", false, ContextFieldKind.FhirId),
+                    new("selections", true, ContextFieldKind.ReferenceArray), new("draftOrders", true, ContextFieldKind.Bundle),
                 ],
                 PrefetchKeys = AllKeys,
                 RequiredKeys = Required,
@@ -81,7 +81,7 @@ public sealed class ServiceCatalog
                 Description = "Before orders are signed: warns when a drug is a likely cause of low sodium, and predicts the sodium change of intravenous sodium chloride orders.",
                 Context =
                 [
-                    new("userId", true, ContextFieldKind.String), new("patientId", true, ContextFieldKind.FhirId),
+                    new("userId", true, ContextFieldKind.UserReference), new("patientId", true, ContextFieldKind.FhirId),
                     new("encounterId", false, ContextFieldKind.FhirId), new("draftOrders", true, ContextFieldKind.Bundle),
                 ],
                 PrefetchKeys = AllKeys,

@@ -52,8 +52,11 @@ public sealed class ClientAuthenticationOptions
     public int MaxTokenLifetimeSeconds { get; set; } = 300;
 
     /// <summary>
-    /// How many (issuer, jti) pairs the replay cache holds at once. Default 100 000 (about 20 MB at the longest jti);
-    /// when full of unexpired entries new tokens are refused with 503 rather than letting replays through.
+    /// How many unexpired token ids the per-process replay cache holds for each trusted client (the cache is
+    /// partitioned per client). Default 100 000 (about 20 MB at the longest jti): at the default rate limit of 50
+    /// calls/s a client holds at most 50 × 360 s = 18 000 ids. When one client's partition is full its new tokens are
+    /// refused with 503 rather than letting replays through; other clients are not affected. Not used when the replay
+    /// store is PostgreSQL.
     /// </summary>
     [Range(1_000, 10_000_000)]
     public int ReplayCacheCapacity { get; set; } = 100_000;

@@ -111,6 +111,61 @@ internal sealed class ClientAuthenticationOptionsValidator(IHostEnvironment envi
         return true;
     }
 
+    /// <summary>
+    /// Null when the public key can be used to verify signatures: an EC key on a named curve (P-256, P-384, P-521)
+    /// whose point (x, y) lies on that curve, or an RSA key with a modulus of at least 2048 bits and an exponent.
+    /// The key is imported by the platform's cryptography, which rejects a point that is not on the curve.
+    /// </summary>
+    internal static string? PublicKeyProblem(JsonWebKey key)
+    {
+        try
+        {
+            if (key.Kty == JsonWebAlgorithmsKeyTypes.EllipticCurve)
+            {
+                var (curve, size) = key.Crv switch
+                {
+                    "P-256" => (System.Security.Cryptography.ECCurve.NamedCurves.nistP256, 32),
+                    "P-384" => (System.Security.Cryptography.ECCurve.NamedCurves.nistP384, 48),
+                    "P-521" => (System.Security.Cryptography.ECCurve.NamedCurves.nistP521, 66),
+                    _ => (default(System.Security.Cryptography.ECCurve), 0),
+                };
+                if (size == 0)
+                {
+                    return $"has curve '{key.Crv}'; only P-256, P-384 and P-521 are accepted.";
+                }
+
+                var x = string.IsNullOrEmpty(key.X) ? [] : Base64UrlEncoder.DecodeBytes(key.X);
+                var y = string.IsNullOrEmpty(key.Y) ? [] : Base64UrlEncoder.DecodeBytes(key.Y);
+                if (x.Length != size || y.Length != size)
+                {
+                    return $"has coordinates x and y that are not {size} bytes each, as {key.Crv} requires.";
+                }
+
+                using var ec = System.Security.Cryptography.ECDsa.Create(new System.Security.Cryptography.ECParameters { Curve = curve, Q = new() { X = x, Y = y } });
+                return null;
+            }
+
+            if (key.Kty == JsonWebAlgorithmsKeyTypes.RSA)
+            {
+                var n = string.IsNullOrEmpty(key.N) ? [] : Base64UrlEncoder.DecodeBytes(key.N);
+                var e = string.IsNullOrEmpty(key.E) ? [] : Base64UrlEncoder.DecodeBytes(key.E);
+                if (e.Length == 0 || n.Length * 8 < 2048)
+                {
+                    return "is not an RSA public key of at least 2048 bits with an exponent.";
+                }
+
+                using var rsa = System.Security.Cryptography.RSA.Create(new System.Security.Cryptography.RSAParameters { Modulus = n, Exponent = e });
+                return null;
+            }
+
+            return null;
+        }
+        catch (Exception ex) when (ex is System.Security.Cryptography.CryptographicException or FormatException or ArgumentException)
+        {
+            return $"is not a valid public key ({(key.Kty == JsonWebAlgorithmsKeyTypes.EllipticCurve ? "the point (x, y) is not on the curve " + key.Crv : ex.GetType().Name)}).";
+        }
+    }
+
     private static List<string> CheckJwks(string json)
     {
         var problems = new List<string>();
@@ -145,6 +200,12 @@ internal sealed class ClientAuthenticationOptionsValidator(IHostEnvironment envi
             if (SecretMembers.Any(m => key.AdditionalData.ContainsKey(m)) || key.HasPrivateKey || !string.IsNullOrEmpty(key.K))
             {
                 problems.Add($"key '{key.Kid}' holds private key material. Give the public key only, and treat the private key as exposed.");
+                continue;
+            }
+
+            if (PublicKeyProblem(key) is { } unusable)
+            {
+                problems.Add($"key '{key.Kid}' {unusable} Copy the client's public JWK again exactly as it publishes it.");
             }
         }
 

@@ -18,18 +18,18 @@ internal sealed class ClientAuthenticator
 
     private readonly ClientAuthenticationOptions _options;
     private readonly JwksSource _jwks;
-    private readonly TokenReplayCache _replay;
+    private readonly ITokenReplayStore _replay;
     private readonly TimeProvider _time;
     private readonly JsonWebTokenHandler _handler = new();
     private readonly Dictionary<string, (TrustedClientOptions Client, IReadOnlyList<JsonWebKey>? InlineKeys)> _clients;
     private readonly IReadOnlyList<string> _algorithms;
 
-    public ClientAuthenticator(IOptions<ClientAuthenticationOptions> options, JwksSource jwks, TimeProvider time)
+    public ClientAuthenticator(IOptions<ClientAuthenticationOptions> options, JwksSource jwks, TimeProvider time, ITokenReplayStore replay)
     {
         _options = options.Value;
         _jwks = jwks;
         _time = time;
-        _replay = new TokenReplayCache(_options.ReplayCacheCapacity);
+        _replay = replay;
         _algorithms = _options.EffectiveAlgorithms;
         _clients = _options.TrustedClients.ToDictionary(
             c => c.Issuer,
@@ -90,6 +90,11 @@ internal sealed class ClientAuthenticator
             return ClientAuthenticationResult.Refused($"header typ is '{LogText.Clip(jwt.Typ, 16)}', not JWT");
         }
 
+        if (CriticalHeaderProblem(jwt) is { } critical)
+        {
+            return ClientAuthenticationResult.Refused(critical);
+        }
+
         var issuer = SafeClaim(jwt, "iss");
         if (issuer is null || !_clients.TryGetValue(issuer, out var trusted))
         {
@@ -126,6 +131,12 @@ internal sealed class ClientAuthenticator
             return ClientAuthenticationResult.Refused($"iss '{LogText.Clip(issuer)}' kid '{LogText.Clip(jwt.Kid, 64)}': {Describe(validation.Exception, audience)}");
         }
 
+        // The library accepts an aud array that merely contains the URL; CDS Hooks tokens are for this service alone.
+        if (jwt.Audiences.Count() != 1)
+        {
+            return ClientAuthenticationResult.Refused($"iss '{LogText.Clip(issuer)}': aud is an array of {jwt.Audiences.Count()} values; only the URL called ({audience}) is accepted, alone");
+        }
+
         var now = _time.GetUtcNow();
         if (!jwt.TryGetPayloadValue<long>("exp", out var expSeconds) || !jwt.TryGetPayloadValue<long>("iat", out var iatSeconds))
         {
@@ -160,7 +171,17 @@ internal sealed class ClientAuthenticator
             return ClientAuthenticationResult.Refused($"iss '{LogText.Clip(issuer)}': jti is missing or longer than {MaxJtiLength} characters");
         }
 
-        switch (_replay.TryUse(issuer, jti, expires + skew, now))
+        ReplayCheck replay;
+        try
+        {
+            replay = await _replay.TryUseAsync(issuer, jti, expires + skew, now, cancellationToken).ConfigureAwait(false);
+        }
+        catch (ReplayStoreUnavailableException ex)
+        {
+            return new ClientAuthenticationResult { Status = StatusCodes.Status503ServiceUnavailable, LogReason = $"iss '{LogText.Clip(issuer)}': {ex.Message}" };
+        }
+
+        switch (replay)
         {
             case ReplayCheck.Replayed:
                 return ClientAuthenticationResult.Refused($"iss '{LogText.Clip(issuer)}': jti '{LogText.Clip(jti, 64)}' was already used (replay)");
@@ -168,7 +189,8 @@ internal sealed class ClientAuthenticator
                 return new ClientAuthenticationResult
                 {
                     Status = StatusCodes.Status503ServiceUnavailable,
-                    LogReason = $"replay cache full ({_options.ReplayCacheCapacity} unexpired token ids); raise ReplayCacheCapacity or lower MaxTokenLifetimeSeconds",
+                    LogReason = $"iss '{LogText.Clip(issuer)}': this client's replay cache is full ({_options.ReplayCacheCapacity} unexpired token ids); "
+                        + "other clients are not affected; lower its request rate (Natremia:RateLimiting) or raise ReplayCacheCapacity",
                 };
             default:
                 return ClientAuthenticationResult.Accepted(issuer);
@@ -224,6 +246,24 @@ internal sealed class ClientAuthenticator
         return keys.FirstOrDefault(k => string.Equals(k.Kid, jwt.Kid, StringComparison.Ordinal)
             && string.Equals(k.Kty, kty, StringComparison.Ordinal)
             && (string.IsNullOrEmpty(k.Use) || k.Use == JsonWebKeyUseNames.Sig));
+    }
+
+    /// <summary>
+    /// RFC 7515 §4.1.11: a "crit" header lists extensions the recipient must understand or refuse the token. This
+    /// service understands no JWS extension, so any "crit" member (also an empty or malformed one) is refused.
+    /// </summary>
+    private static string? CriticalHeaderProblem(JsonWebToken jwt)
+    {
+        using var header = JsonDocument.Parse(Base64UrlEncoder.Decode(jwt.EncodedHeader));
+        if (!header.RootElement.TryGetProperty("crit", out var crit))
+        {
+            return null;
+        }
+
+        var names = crit.ValueKind == JsonValueKind.Array
+            ? string.Join(", ", crit.EnumerateArray().Take(5).Select(e => LogText.Clip(e.ValueKind == JsonValueKind.String ? e.GetString() : e.ToString(), 32)))
+            : "not an array";
+        return $"header crit ({names}) names extensions this service does not understand (RFC 7515 §4.1.11)";
     }
 
     private static string? SafeClaim(JsonWebToken jwt, string name)

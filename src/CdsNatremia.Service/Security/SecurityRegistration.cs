@@ -1,4 +1,8 @@
 using System.Globalization;
+using System.Threading.RateLimiting;
+using CdsNatremia.Audit.Storage;
+using Microsoft.AspNetCore.Mvc;
+using Microsoft.AspNetCore.RateLimiting;
 using Microsoft.AspNetCore.Cors.Infrastructure;
 using Microsoft.AspNetCore.Server.Kestrel.Core;
 using Microsoft.Extensions.Options;
@@ -41,6 +45,37 @@ public static partial class SecurityRegistration
 
         services.AddSingleton<JwksSource>();
         services.AddSingleton<ClientAuthenticator>();
+
+        // Used token ids: shared by every instance in PostgreSQL when the audit uses it, else kept in this process.
+        var postgres = builder.Configuration["Natremia:Audit:PostgresConnectionString"];
+        if (string.IsNullOrWhiteSpace(postgres))
+        {
+            services.AddSingleton<ITokenReplayStore>(sp => new PartitionedReplayCache(sp.GetRequiredService<IOptions<ClientAuthenticationOptions>>().Value.ReplayCacheCapacity));
+        }
+        else
+        {
+            services.AddSingleton(_ => new UsedTokenLedger(postgres));
+            services.AddSingleton<ITokenReplayStore, SharedReplayStore>();
+        }
+
+        services.AddOptions<RateLimitingOptions>().Bind(builder.Configuration.GetSection(RateLimitingOptions.Section)).ValidateDataAnnotations().ValidateOnStart();
+        services.AddRateLimiter(_ => { });
+        services.AddOptions<RateLimiterOptions>().Configure<IOptions<RateLimitingOptions>>((limiter, limits) =>
+        {
+            var l = limits.Value;
+            limiter.GlobalLimiter = PartitionedRateLimiter.Create<HttpContext, string>(context =>
+                context.Items[ClientAuthenticationMiddleware.ClientItem] is string client
+                    ? RateLimitPartition.GetTokenBucketLimiter(client, _ => new TokenBucketRateLimiterOptions
+                    {
+                        TokenLimit = l.TokenLimit,
+                        TokensPerPeriod = l.TokensPerPeriod,
+                        ReplenishmentPeriod = TimeSpan.FromSeconds(l.ReplenishmentPeriodSeconds),
+                        QueueLimit = 0,
+                        AutoReplenishment = true,
+                    })
+                    : RateLimitPartition.GetNoLimiter(string.Empty));
+            limiter.OnRejected = (rejected, cancellationToken) => RejectAsync(rejected, l, cancellationToken);
+        });
         services.AddHttpClient(JwksSource.HttpClientName)
             .ConfigureHttpClient((sp, client) =>
             {
@@ -102,7 +137,7 @@ public static partial class SecurityRegistration
         }
         else
         {
-            LogEnforced(logger, auth.TrustedClients.Count, string.Join(", ", auth.EffectiveAlgorithms), auth.PublicBaseUrl!);
+            LogEnforced(logger, auth.TrustedClients.Count, string.Join(", ", auth.EffectiveAlgorithms), auth.PublicBaseUrl!, app.Services.GetRequiredService<ITokenReplayStore>().Kind);
         }
 
         app.UseMiddleware<RequestBodyLimitMiddleware>();
@@ -111,10 +146,42 @@ public static partial class SecurityRegistration
             app.UseCors(CorsPolicy);
         }
 
+        var rateLimited = app.Services.GetRequiredService<IOptions<RateLimitingOptions>>().Value.Enabled;
         app.UseWhen(
             context => context.Request.Path.StartsWithSegments("/cds-services", StringComparison.OrdinalIgnoreCase),
-            branch => branch.UseMiddleware<ClientAuthenticationMiddleware>());
+            branch =>
+            {
+                branch.UseMiddleware<ClientAuthenticationMiddleware>();
+
+                // After authentication: the limiter's partition is the authenticated client.
+                if (rateLimited)
+                {
+                    branch.UseRateLimiter();
+                }
+            });
         return app;
+    }
+
+    /// <summary>429 with Retry-After (whole seconds until the client's bucket has a call again) and a problem body.</summary>
+    private static async ValueTask RejectAsync(OnRejectedContext rejected, RateLimitingOptions limits, CancellationToken cancellationToken)
+    {
+        var context = rejected.HttpContext;
+        var wait = rejected.Lease.TryGetMetadata(MetadataName.RetryAfter, out var retryAfter)
+            ? retryAfter
+            : TimeSpan.FromSeconds(limits.ReplenishmentPeriodSeconds);
+        var seconds = Math.Max(1, (int)Math.Ceiling(wait.TotalSeconds));
+        context.Response.StatusCode = StatusCodes.Status429TooManyRequests;
+        context.Response.Headers.RetryAfter = seconds.ToString(CultureInfo.InvariantCulture);
+        await context.RequestServices.GetRequiredService<IProblemDetailsService>().WriteAsync(new ProblemDetailsContext
+        {
+            HttpContext = context,
+            ProblemDetails = new ProblemDetails
+            {
+                Status = StatusCodes.Status429TooManyRequests,
+                Title = "Too many requests",
+                Detail = string.Create(CultureInfo.InvariantCulture, $"This client has used its {limits.TokenLimit} calls; {limits.TokensPerPeriod} more are allowed every {limits.ReplenishmentPeriodSeconds} s. Try again in {seconds} s."),
+            },
+        }).ConfigureAwait(false);
     }
 
     private static bool IsOrigin(string text)
@@ -127,6 +194,6 @@ public static partial class SecurityRegistration
     [LoggerMessage(Level = LogLevel.Warning, Message = "\n!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!\n{Notice}\n!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!!")]
     private static partial void LogOpenMode(ILogger logger, string notice);
 
-    [LoggerMessage(Level = LogLevel.Information, Message = "CDS client authentication on: {ClientCount} trusted clients, algorithms {Algorithms}, audience base {PublicBaseUrl}")]
-    private static partial void LogEnforced(ILogger logger, int clientCount, string algorithms, string publicBaseUrl);
+    [LoggerMessage(Level = LogLevel.Information, Message = "CDS client authentication on: {ClientCount} trusted clients, algorithms {Algorithms}, audience base {PublicBaseUrl}, used token ids kept in {ReplayStore}")]
+    private static partial void LogEnforced(ILogger logger, int clientCount, string algorithms, string publicBaseUrl, string replayStore);
 }

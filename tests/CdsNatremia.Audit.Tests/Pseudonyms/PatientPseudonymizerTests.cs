@@ -28,4 +28,33 @@ public sealed class PatientPseudonymizerTests
     [Fact]
     public void Constructor_KeyShorterThan32Bytes_Refused()
         => Assert.Throws<ArgumentException>(() => new PatientPseudonymizer(new byte[31]));
+
+    [Fact]
+    public void KeyId_PerKey_StableDifferentAndNotTheKey()
+    {
+        var keyA = Enumerable.Repeat((byte)1, 32).ToArray();
+        var keyB = Enumerable.Repeat((byte)2, 32).ToArray();
+
+        Assert.Equal(new PatientPseudonymizer(keyA).KeyId, new PatientPseudonymizer(keyA).KeyId);
+        Assert.NotEqual(new PatientPseudonymizer(keyA).KeyId, new PatientPseudonymizer(keyB).KeyId);
+        Assert.Matches("^[0-9a-f]{12}$", new PatientPseudonymizer(keyA).KeyId);
+        Assert.DoesNotContain(Convert.ToHexStringLower(keyA)[..12], new PatientPseudonymizer(keyA).KeyId, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void AllPseudonyms_AfterRotation_CurrentKeyFirstThenEachPreviousKey()
+    {
+        var oldKey = Enumerable.Repeat((byte)1, 32).ToArray();
+        var newKey = Enumerable.Repeat((byte)2, 32).ToArray();
+        var before = new PatientPseudonymizer(oldKey);
+        var after = new PatientPseudonymizer(newKey, [oldKey, newKey]);
+
+        var all = after.AllPseudonyms("s01-pt");
+
+        Assert.Equal(after.Pseudonym("s01-pt"), all[0].Pseudonym);
+        Assert.Equal(after.KeyId, all[0].KeyId);
+        Assert.Equal(new KeyedPseudonym(before.KeyId, before.Pseudonym("s01-pt")), all[1]);
+        Assert.Equal(2, all.Count); // the current key listed again among the previous ones is not repeated
+        Assert.Equal([before.KeyId], after.PreviousKeyIds);
+    }
 }

@@ -260,4 +260,25 @@ public abstract class AuditStoreContract
         Assert.True(withTests.TestTrafficIncluded);
         Assert.Equal(0L, withTests.TestCardsExcluded);
     }
+
+    [SkippableFact]
+    public async Task FindCardsOfPatientAsync_AfterKeyRotation_FindsRecordsOfTheOldAndTheNewKey()
+    {
+        await using var scope = await OpenAsync();
+        var oldKey = Enumerable.Repeat((byte)7, 32).ToArray();
+        var newKey = Enumerable.Repeat((byte)9, 32).ToArray();
+        var before = new PatientPseudonymizer(oldKey);
+        var after = new PatientPseudonymizer(newKey, [oldKey]);
+        var underOld = Some.Card(issuedAt: Some.Now) with { PatientPseudonym = before.Pseudonym("pat-rotation"), PseudonymKeyId = before.KeyId };
+        var underNew = Some.Card(issuedAt: Some.Now.AddDays(1)) with { PatientPseudonym = after.Pseudonym("pat-rotation"), PseudonymKeyId = after.KeyId };
+        var otherPatient = Some.Card(issuedAt: Some.Now) with { PatientPseudonym = after.Pseudonym("pat-other"), PseudonymKeyId = after.KeyId };
+        await scope.Store.RecordIssuedAsync([underOld, underNew, otherPatient], None);
+
+        var found = await scope.Store.FindCardsOfPatientAsync(after.AllPseudonyms("pat-rotation"), None);
+        var withoutOldKey = await scope.Store.FindCardsOfPatientAsync(new PatientPseudonymizer(newKey).AllPseudonyms("pat-rotation"), None);
+
+        Assert.Equal([underOld.CardUuid, underNew.CardUuid], found.Select(c => c.CardUuid));
+        Assert.Equal([before.KeyId, after.KeyId], found.Select(c => c.PseudonymKeyId));
+        Assert.Equal([underNew.CardUuid], withoutOldKey.Select(c => c.CardUuid));
+    }
 }

@@ -67,6 +67,32 @@ public sealed class SqliteAuditStoreTests : AuditStoreContract
         Assert.Equal(2L, await scope.Store.QueryScalarAsync("PRAGMA synchronous", None)); // 2 = FULL (SQLite documentation, PRAGMA synchronous)
     }
 
+    [SkippableFact]
+    [System.Runtime.Versioning.UnsupportedOSPlatform("windows")]
+    public async Task InitializeAsync_NewFolder_FolderOwnerOnlyAndEveryDatabaseFileOwnerOnly()
+    {
+        Skip.If(OperatingSystem.IsWindows(), "Unix permissions only");
+        var folder = Path.Combine(NewFolder(), "data");
+        try
+        {
+            var path = Path.Combine(folder, "audit.db");
+            await using (var store = new SqliteAuditStore(path))
+            {
+                await store.InitializeAsync(None);
+                await store.RecordIssuedAsync([Some.Card()], None);
+
+                Assert.Equal(PrivateFiles.FolderMode, File.GetUnixFileMode(folder));
+                var files = Directory.GetFiles(folder);
+                Assert.Contains(path + "-wal", files);
+                Assert.All(files, f => Assert.Equal(PrivateFiles.FileMode, File.GetUnixFileMode(f)));
+            }
+        }
+        finally
+        {
+            TryDelete(Path.GetDirectoryName(folder)!);
+        }
+    }
+
     [Fact]
     public async Task FileBytes_PseudonymisedPatient_ClearIdNowhereInDatabaseOrLog()
     {
