@@ -1,9 +1,15 @@
 using CdsNatremia.Service.Configuration;
+using CdsNatremia.Service.Hosting;
+using CdsNatremia.Service.Telemetry;
 
 var builder = WebApplication.CreateBuilder(args);
 builder.AddNatremia();
+builder.AddNatremiaTelemetry();
+builder.AddNatremiaGracefulShutdown();
 
 var app = builder.Build();
+app.UseNatremiaGracefulShutdown();
+app.UseNatremiaTelemetry();
 app.UseNatremia();
 app.Run();
 
