@@ -6,7 +6,8 @@ namespace CdsNatremia.Service.Telemetry;
 /// <summary>
 /// Runs before any exporter: strips from every span what could carry a patient identifier or a credential. An
 /// outgoing FHIR call's URL names the patient (<c>Patient/123</c>, <c>?patient=123</c>), so <c>url.full</c> keeps
-/// only the server's origin; query strings are dropped; database connection strings are dropped.
+/// only the server's origin; a server span's path becomes its route template; query strings and database connection
+/// strings are dropped.
 /// </summary>
 internal sealed class TelemetryScrubber : BaseProcessor<Activity>
 {
@@ -22,6 +23,13 @@ internal sealed class TelemetryScrubber : BaseProcessor<Activity>
             {
                 data.SetTag(name, Uri.TryCreate(url, UriKind.Absolute, out var uri) ? uri.GetLeftPart(UriPartial.Authority) : null);
             }
+        }
+
+        if (data.GetTagItem("url.path") is not null)
+        {
+            // A path the client chose (an unknown service id, anything that matched no route) could carry anything:
+            // keep the route template instead, or nothing.
+            data.SetTag("url.path", data.GetTagItem("http.route") as string);
         }
 
         foreach (var name in DroppedTags)
