@@ -14,6 +14,9 @@ namespace CdsNatremia.Service.Hosting;
 /// </summary>
 public static partial class GracefulShutdown
 {
+    /// <summary>The readiness endpoint (mapped in HealthEndpoints) that answers "draining" once shutdown has begun.</summary>
+    public const string ReadinessPath = "/readyz";
+
     /// <summary>Registers the options, the drain state and the two shutdown steps, and sets the host's shutdown budget.</summary>
     public static WebApplicationBuilder AddNatremiaGracefulShutdown(this WebApplicationBuilder builder)
     {
@@ -41,7 +44,7 @@ public static partial class GracefulShutdown
         var state = app.Services.GetRequiredService<ShutdownState>();
         app.Use(async (context, next) =>
         {
-            if (state.Draining && context.Request.Path.Equals("/readyz", StringComparison.Ordinal))
+            if (state.Draining && context.Request.Path.Equals(ReadinessPath, StringComparison.Ordinal))
             {
                 context.Response.StatusCode = StatusCodes.Status503ServiceUnavailable;
                 context.Response.Headers.Connection = "close";
