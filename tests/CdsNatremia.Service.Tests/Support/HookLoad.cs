@@ -13,9 +13,13 @@ namespace CdsNatremia.Service.Tests.Support;
 /// <param name="Status">HTTP status, or 0 when no response came (connection refused or reset before any header).</param>
 /// <param name="CardUuids">The uuids of the cards answered (a 200 whose body was read whole and parsed).</param>
 /// <param name="Cut">True when headers arrived but the body could not be read whole or was not complete JSON.</param>
-/// <param name="StartedAfter">Sent after the moment the run marked (e.g. the stop signal).</param>
+/// <param name="Phase">How many marks the run had made when the call was sent (see <see cref="HookLoad.Mark"/>).</param>
 /// <param name="Instance">The service instance that answered (X-Natremia-Test-Backend from HAProxy), when known.</param>
-public sealed record HookCallResult(Guid HookInstance, int Status, IReadOnlyList<Guid> CardUuids, bool Cut, bool StartedAfter, string? Instance);
+public sealed record HookCallResult(Guid HookInstance, int Status, IReadOnlyList<Guid> CardUuids, bool Cut, int Phase, string? Instance)
+{
+    /// <summary>Sent after the first mark (e.g. the stop signal).</summary>
+    public bool StartedAfter => Phase > 0;
+}
 
 /// <summary>
 /// Loopback load for shutdown and fleet tests: a few workers post scenario 01 (an invented patient whose sodium of
@@ -27,7 +31,7 @@ public sealed class HookLoad
     private readonly ConcurrentQueue<HookCallResult> _results = new();
     private readonly Func<string, string?>? _token;
     private long _answered;
-    private volatile bool _marked;
+    private int _phase;
 
     /// <param name="token">Bearer token per call (given the path), when the service demands one.</param>
     public HookLoad(Func<string, string?>? token = null) => _token = token;
@@ -37,8 +41,8 @@ public sealed class HookLoad
     /// <summary>Answered (200, read whole) calls so far.</summary>
     public long Answered => Interlocked.Read(ref _answered);
 
-    /// <summary>Marks the moment (e.g. SIGTERM sent); calls sent from now on are flagged <see cref="HookCallResult.StartedAfter"/>.</summary>
-    public void Mark() => _marked = true;
+    /// <summary>Marks a moment (e.g. SIGTERM sent); calls sent from now on carry the next <see cref="HookCallResult.Phase"/>.</summary>
+    public void Mark() => Interlocked.Increment(ref _phase);
 
     /// <summary>
     /// Runs <paramref name="workers"/> workers until <paramref name="stop"/> fires or <paramref name="maxCalls"/> calls
@@ -76,7 +80,7 @@ public sealed class HookLoad
     private async Task<HookCallResult> CallAsync(HttpClient client, Scenario scenario, CancellationToken stop)
     {
         var hookInstance = Guid.NewGuid();
-        var after = _marked;
+        var after = Volatile.Read(ref _phase);
         const string path = "/cds-services/natremia-chart-review";
         var body = HookRequestBuilder.Build(scenario, "patient-view", TimeSpan.Zero, hookInstance, includePrefetch: true);
         using var request = new HttpRequestMessage(HttpMethod.Post, path) { Content = new StringContent(body.ToJsonString(), Encoding.UTF8, "application/json") };
