@@ -1,14 +1,20 @@
 using CdsNatremia.Service.Configuration;
+using CdsNatremia.Service.Hosting;
+using CdsNatremia.Service.Telemetry;
 
 try
 {
     var builder = WebApplication.CreateBuilder(args);
     builder.AddNatremia();
+    builder.AddNatremiaTelemetry();
+    builder.AddNatremiaGracefulShutdown();
 
     var app = builder.Build();
 
     // Every ValidateOnStart check runs here, so a bad setting stops the start before anything listens.
     StartupRefusal.ValidateNow(app.Services);
+    app.UseNatremiaGracefulShutdown();
+    app.UseNatremiaTelemetry();
     app.UseNatremia();
     app.Run();
     return 0;

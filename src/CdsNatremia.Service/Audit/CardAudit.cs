@@ -1,3 +1,4 @@
+using System.Diagnostics;
 using System.Reflection;
 using CdsNatremia.Audit.Pseudonyms;
 using CdsNatremia.Audit.Records;
@@ -5,6 +6,7 @@ using CdsNatremia.Audit.Storage;
 using CdsNatremia.Core.Cards;
 using CdsNatremia.Fhir.Knowledge;
 using CdsNatremia.Service.Hooks;
+using CdsNatremia.Service.Telemetry;
 
 namespace CdsNatremia.Service.Audit;
 
@@ -62,6 +64,25 @@ public sealed class CardAudit
     }
 
     /// <summary>Records one response's cards (flagged when the request was marked as test traffic); completes once they are durably stored.</summary>
-    public Task RecordAsync(ServiceDefinition service, Guid hookInstance, string patientId, DateTimeOffset now, IReadOnlyList<IssuedCard> issued, bool testTraffic, CancellationToken cancellationToken)
-        => _store.RecordIssuedAsync(Records(service, hookInstance, patientId, now, issued, testTraffic), cancellationToken);
+    public async Task RecordAsync(ServiceDefinition service, Guid hookInstance, string patientId, DateTimeOffset now, IReadOnlyList<IssuedCard> issued, bool testTraffic, CancellationToken cancellationToken)
+    {
+        var records = Records(service, hookInstance, patientId, now, issued, testTraffic);
+        using var activity = NatremiaTelemetry.Source.StartActivity("audit write");
+        activity?.SetTag("natremia.audit.store", _store.Kind);
+        activity?.SetTag("natremia.cards", records.Count);
+        var started = Stopwatch.GetTimestamp();
+        var succeeded = false;
+        try
+        {
+            await _store.RecordIssuedAsync(records, cancellationToken).ConfigureAwait(false);
+            succeeded = true;
+        }
+        finally
+        {
+            NatremiaTelemetry.RecordAuditWrite(Stopwatch.GetElapsedTime(started), _store.Kind, succeeded);
+            activity?.SetStatus(succeeded ? ActivityStatusCode.Ok : ActivityStatusCode.Error);
+        }
+
+        NatremiaTelemetry.RecordCards(issued.Select(i => i.Card));
+    }
 }

@@ -3,6 +3,7 @@ using System.Text.Json;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Fhir.Reading;
 using CdsNatremia.Service.Hooks;
+using CdsNatremia.Service.Telemetry;
 using Microsoft.Extensions.Options;
 using Polly.CircuitBreaker;
 using Polly.Timeout;
@@ -54,6 +55,7 @@ internal sealed class FhirFetchPrefetchCompleter : IPrefetchCompleter
         if (refusal is not null)
         {
             FetchLog.NotAttempted(_logger, keys.Count, refusal);
+            NatremiaTelemetry.RecordFetchRefused(keys.Count);
             return keys.Select(k => Failed(k, $"prefetch '{k}': {refusal}")).ToList();
         }
 
@@ -213,6 +215,7 @@ internal sealed class FhirFetchPrefetchCompleter : IPrefetchCompleter
             outcome = failure is not null ? "partial" : resources.Count > 0 ? "data" : "no data";
         }
 
+        NatremiaTelemetry.RecordFetch(outcome);
         FetchLog.Fetched(_logger, key, FhirServerAllowlist.OriginOf(server), outcome, status, pages, Math.Max(0, attempts - Math.Max(1, pages)), (long)_time.GetElapsedTime(started).TotalMilliseconds);
         return value;
     }

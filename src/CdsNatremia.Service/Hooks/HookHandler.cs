@@ -1,7 +1,9 @@
+using System.Diagnostics;
 using System.Text.Json;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Fhir.Reading;
+using CdsNatremia.Service.Telemetry;
 
 namespace CdsNatremia.Service.Hooks;
 
@@ -120,7 +122,14 @@ public sealed class HookHandler
                 .Select(r => r.Resource.Id!)
                 .ToList(),
         };
-        return new HookOutcome.Cards(_engine.Decide(decision), request.PatientId, now);
+        NatremiaTelemetry.RecordSetAside(facts.SetAside);
+        using var activity = NatremiaTelemetry.Source.StartActivity("rules evaluate");
+        activity?.SetTag("natremia.service", service.Id);
+        var started = Stopwatch.GetTimestamp();
+        var cards = _engine.Decide(decision);
+        NatremiaTelemetry.RecordRuleEvaluation(Stopwatch.GetElapsedTime(started), service.Hook);
+        activity?.SetTag("natremia.cards", cards.Count);
+        return new HookOutcome.Cards(cards, request.PatientId, now);
     }
 
     /// <summary>True when the hook context brought a sodium of this patient: measured, bounded or unreadable.</summary>

@@ -35,6 +35,11 @@ internal sealed partial class ClientAuthenticationMiddleware(
         }
 
         LogRefused(logger, context.TraceIdentifier, result.Status, result.LogReason);
+        if (result.LogReason.EndsWith("(replay)", StringComparison.Ordinal))
+        {
+            Telemetry.NatremiaTelemetry.RecordReplayRefusal();
+        }
+
         context.Response.StatusCode = result.Status;
         string detail;
         if (result.Status == StatusCodes.Status401Unauthorized)
