@@ -6,9 +6,10 @@ namespace CdsNatremia.Service.Fetching;
 /// <summary>
 /// Checks every <see cref="FhirFetchOptions.AllowedServers"/> entry at start-up: an absolute http(s) base URL without
 /// user information, query or fragment, and https outside the Development environment. An entry that could never
-/// match (a typo such as "::::") stops the start-up instead of silently allowing nothing.
+/// match (a typo such as "::::") stops the start-up instead of silently allowing nothing. Without a host environment
+/// (a bare service collection, as tools and tests build) only the form is checked, not the https rule.
 /// </summary>
-internal sealed class FhirFetchOptionsValidator(IHostEnvironment environment) : IValidateOptions<FhirFetchOptions>
+internal sealed class FhirFetchOptionsValidator(IHostEnvironment? environment = null) : IValidateOptions<FhirFetchOptions>
 {
     public ValidateOptionsResult Validate(string? name, FhirFetchOptions options)
     {
@@ -17,7 +18,7 @@ internal sealed class FhirFetchOptionsValidator(IHostEnvironment environment) : 
         {
             var entry = options.AllowedServers[i];
             var where = string.Create(CultureInfo.InvariantCulture, $"{FhirFetchOptions.Section}:AllowedServers:{i}");
-            if (Problem(entry, environment.IsDevelopment()) is { } problem)
+            if (Problem(entry, environment?.IsDevelopment() ?? true) is { } problem)
             {
                 failures.Add($"{where} '{entry}' {problem} Give the EHR's FHIR base URL, e.g. https://ehr.hospital.example/fhir.");
             }

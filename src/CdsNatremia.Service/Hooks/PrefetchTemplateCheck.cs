@@ -5,12 +5,23 @@ namespace CdsNatremia.Service.Hooks;
 /// <summary>
 /// Whether a prefetch value holds what its template asks for (<see cref="PrefetchKeys.Templates"/>): a read
 /// ("Patient/{{context.patientId}}") asks for that resource type; a search ("Observation?…") asks for a Bundle of
-/// that type (OperationOutcome entries and entries the server marks as search mode "include" may come with it), or,
+/// that type (OperationOutcome entries, entries the server marks as search mode "include", and the Medication of a
+/// medication search may come with it), or,
 /// tolerated, a single resource of that type. A Patient, a Binary, an unknown resourceType or a Bundle of other types
 /// under "sodium" is not the sodium series, whatever it contains: the caller treats it as absent.
 /// </summary>
 public static class PrefetchTemplateCheck
 {
+    /// <summary>
+    /// Types a search may bring along besides its own: the Medication a MedicationRequest or MedicationStatement
+    /// references (EHRs commonly include it, with or without search mode "include").
+    /// </summary>
+    private static readonly Dictionary<string, string[]> Companions = new(StringComparer.Ordinal)
+    {
+        ["MedicationRequest"] = ["Medication"],
+        ["MedicationStatement"] = ["Medication"],
+    };
+
     /// <summary>The resource type a key's template asks for, and whether it is a search (answered by a Bundle).</summary>
     public static (string Type, bool Search)? Expected(string key)
     {
@@ -57,7 +68,8 @@ public static class PrefetchTemplateCheck
             }
 
             var entryType = TypeOf(resource);
-            if (entryType is null || entryType == expected.Type || entryType == "OperationOutcome" || IsIncluded(entry))
+            if (entryType is null || entryType == expected.Type || entryType == "OperationOutcome" || IsIncluded(entry)
+                || (Companions.TryGetValue(expected.Type, out var companions) && companions.Contains(entryType, StringComparer.Ordinal)))
             {
                 continue;
             }

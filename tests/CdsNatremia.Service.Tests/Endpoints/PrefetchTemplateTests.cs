@@ -95,4 +95,17 @@ public sealed class PrefetchTemplateTests(NatremiaFactory factory) : IClassFixtu
         Assert.Equal(HttpStatusCode.OK, response.StatusCode);
         Assert.Contains("124", (string)(await HookCalls.CardsAsync(response)).First()!["summary"]!, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public async Task MedicationSearchWithItsMedications_Used()
+    {
+        // Scenario 18 (scenarios.json): the medication searches carry the referenced Medication (an ACE-thiazide
+        // combination) beside the MedicationRequests, as EHRs do; the drug-cause card must still name the thiazide.
+        var scenario = ScenarioLibrary.Find("18")!;
+
+        var cards = await HookCalls.RunAsync(factory.CreateClient(), scenario);
+
+        Assert.Contains("hydrochlorothiazide", cards.ToJsonString(), StringComparison.OrdinalIgnoreCase);
+        Assert.DoesNotContain("its template asks for", cards.ToJsonString(), StringComparison.Ordinal);
+    }
 }
