@@ -32,6 +32,12 @@ public sealed record Scenario
     /// <summary>For the result hook: ids of the newly arrived Observations.</summary>
     public IReadOnlyList<string> NewResultIds { get; init; } = [];
 
+    /// <summary>
+    /// Resources an EHR wrongly sends inside a prefetch key although a FHIR search would not return them (e.g. another
+    /// patient's result), by key: replay adds them to that key as the faulty EHR would. Empty for most scenarios.
+    /// </summary>
+    public IReadOnlyDictionary<string, IReadOnlyList<string>> Misdirected { get; init; } = new Dictionary<string, IReadOnlyList<string>>();
+
     /// <summary>The expectation, as the manifest states it.</summary>
     public required JsonElement Expect { get; init; }
 

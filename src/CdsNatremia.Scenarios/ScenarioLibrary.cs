@@ -41,6 +41,9 @@ public static class ScenarioLibrary
                 DraftOrdersJson = item.TryGetProperty("draftOrdersFile", out var d) ? Read(assembly, d.GetString()!) : null,
                 Selections = Strings(item, "selections"),
                 NewResultIds = Strings(item, "newResultIds"),
+                Misdirected = item.TryGetProperty("misdirected", out var m) && m.ValueKind == JsonValueKind.Object
+                    ? m.EnumerateObject().ToDictionary(k => k.Name, k => (IReadOnlyList<string>)k.Value.EnumerateArray().Select(e => e.GetString()!).ToList(), StringComparer.Ordinal)
+                    : new Dictionary<string, IReadOnlyList<string>>(StringComparer.Ordinal),
                 Expect = item.GetProperty("expect").Clone(),
             });
         }

@@ -111,6 +111,18 @@ internal static class HookRequestComposer
             prefetch[key] = query.IsRead
                 ? outcome.Matches.FirstOrDefault()?.DeepClone()
                 : SearchsetBundle.Page(query, outcome);
+            if (input.Scenario?.Misdirected.GetValueOrDefault(key) is { Count: > 0 } misdirected && prefetch[key] is JsonObject bundle)
+            {
+                // The scenario's EHR wrongly puts these into this key (a search would not return them): send them as it would.
+                var entries = bundle["entry"] as JsonArray ?? [];
+                bundle["entry"] = entries;
+                foreach (var resource in input.Resources.Where(r => misdirected.Contains($"{FhirSearchEvaluator.TypeOf(r)}/{(string?)r["id"]}", StringComparer.Ordinal)))
+                {
+                    entries.Add(new JsonObject { ["resource"] = resource.DeepClone(), ["search"] = new JsonObject { ["mode"] = "match" } });
+                }
+
+                notes.Add($"prefetch '{key}': {misdirected.Count} resource(s) added as the scenario's EHR wrongly sends them");
+            }
         }
 
         return prefetch;

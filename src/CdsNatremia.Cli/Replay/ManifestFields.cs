@@ -28,7 +28,11 @@ internal static partial class ManifestFields
             ["latestValidSodium"] = c => NumberAt(c, LatestSodium(), 0.05),
             ["mentions"] = c => Words(c, c.Expected.EnumerateArray().Select(e => e.ToString()).ToList()),
             ["tonicity"] = Tonicity,
-            ["highRiskOsmoticDemyelination"] = c => Statement(c, c.Answer.All.Contains("High risk of osmotic demyelination", StringComparison.Ordinal)),
+            // Said of this patient: on the assessment card ("This patient is at high risk …") or on a rate card
+            // ("**High risk of osmotic demyelination**, so the stricter limits apply"); never the generic caution.
+            ["highRiskOsmoticDemyelination"] = c => Statement(c,
+                c.Answer.All.Contains("patient is at high risk of osmotic demyelination", StringComparison.Ordinal)
+                || c.Answer.All.Contains("High risk of osmotic demyelination**", StringComparison.Ordinal)),
             ["acute"] = c => Statement(c, c.Answer.All.Contains("**acute** hyponatremia", StringComparison.Ordinal)),
             ["glucoseCorrectedSodium"] = GlucoseCorrected,
             // The manifest gives the gap to the whole mOsm/kg; the card to a tenth.
@@ -198,7 +202,7 @@ internal static partial class ManifestFields
     [GeneratedRegex(@"\b(profound|moderate|mild)\b", RegexOptions.IgnoreCase)]
     private static partial Regex Bands();
 
-    [GeneratedRegex(@"(?:Latest usable sodium|Serum sodium used: Sodium|sodium is already) (-?\d+(?:\.\d+)?) mmol/L")]
+    [GeneratedRegex(@"(?:Latest usable sodium|Serum sodium used: Sodium|sodium is already|ordered at sodium) (-?\d+(?:\.\d+)?) mmol/L")]
     private static partial Regex LatestSodium();
 
     [GeneratedRegex(@"Serum tonicity: \*\*(\w+)\*\*")]

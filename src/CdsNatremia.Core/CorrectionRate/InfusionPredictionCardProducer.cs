@@ -200,6 +200,12 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
             indicator = CardIndicator.Warning;
         }
 
+        if (indicator == CardIndicator.Critical && context.Sodium.LatestIsStale)
+        {
+            // A stale sodium calls for a recheck first: at most a warning, never a critical interruption (the stale note is in the findings).
+            indicator = CardIndicator.Warning;
+        }
+
         if (mayFall && indicator != CardIndicator.Critical)
         {
             // Desalination (Steele et al. 1997): the prediction's sign cannot be trusted, so its verdict is not given.

@@ -149,7 +149,8 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
         return new Card
         {
             Summary = Summary.Fit(summary),
-            Indicator = allowance?.Binding.Status == RateStatus.AtOrPast ? CardIndicator.Critical : CardIndicator.Warning,
+            // A stale sodium calls for a recheck first: at most a warning.
+            Indicator = allowance?.Binding.Status == RateStatus.AtOrPast && !context.Sodium.LatestIsStale ? CardIndicator.Critical : CardIndicator.Warning,
             Detail = detail.ToString(),
             Topic = Topic,
             RuleIds = [RuleId, RuleId + ".vaptan"],

@@ -101,7 +101,9 @@ public sealed class BundleReader
                 return;
             }
 
-            problems.Add($"{source}: {id} could not be read as FHIR R4 ({problem}); not used");
+            // Whose it is cannot be told from a resource that did not parse, so neither its id nor the parser's words
+            // (which may quote its values) are shown: another patient's data is never printed.
+            problems.Add($"{source}: a {type} entry could not be read as FHIR R4; not used");
             return;
         }
 

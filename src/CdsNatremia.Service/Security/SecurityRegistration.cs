@@ -166,6 +166,7 @@ public static partial class SecurityRegistration
     private static async ValueTask RejectAsync(OnRejectedContext rejected, RateLimitingOptions limits, CancellationToken cancellationToken)
     {
         var context = rejected.HttpContext;
+        Telemetry.NatremiaTelemetry.RecordRateLimitRefusal();
         var wait = rejected.Lease.TryGetMetadata(MetadataName.RetryAfter, out var retryAfter)
             ? retryAfter
             : TimeSpan.FromSeconds(limits.ReplenishmentPeriodSeconds);

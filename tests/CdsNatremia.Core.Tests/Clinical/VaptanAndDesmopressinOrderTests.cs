@@ -16,6 +16,16 @@ public class VaptanAndDesmopressinOrderTests
         => SomeClinical.Decide(facts, HookKind.OrderSign, drafts);
 
     [Theory]
+    [InlineData(1, CardIndicator.Critical)] // fresh: 112 → 124 in 20 h is past the 10 mmol/L first-24-h limit (2014 European guideline)
+    [InlineData(80, CardIndicator.Warning)] // the same rise, newest result 80 h old: stale (72 h window), recheck first
+    public void Produce_VaptanAfterTheLimitWasPassed_CriticalOnlyOnAFreshSodium(double latestHoursAgo, CardIndicator expected)
+    {
+        var facts = Some.Facts(Some.Sodium(112, latestHoursAgo + 20), Some.Sodium(124, latestHoursAgo));
+        var card = Assert.Single(Orders(facts, Tolvaptan), c => c.RuleIds.Contains("sodium.rate-caution-order.vaptan"));
+        Assert.Equal(expected, card.Indicator);
+    }
+
+    [Theory]
     [InlineData(127, "moderate")] // 125–129 (2014 European guideline)
     [InlineData(120, "profound")] // < 125
     public void Produce_VaptanInModerateOrProfound_SaysTheEuropeanGuidelineRecommendsAgainst(double sodium, string band)

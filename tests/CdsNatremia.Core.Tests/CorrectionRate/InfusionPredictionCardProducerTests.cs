@@ -53,6 +53,17 @@ public class InfusionPredictionCardProducerTests
     }
 
     [Fact]
+    public void Produce_OrderWouldExceedButSodiumIsStale_WarningNotCritical()
+    {
+        // The same rise and order as above, but the newest sodium is 80 h old (stale window 72 h, SodiumReadingOptions):
+        // a stale result gives at most a warning, recheck first (issue rule; common practice).
+        var facts = Woman55(Some.Sodium(112, 90), Some.Sodium(119, 80), Some.Lab(Analyte.BodyWeight, 50, 3));
+        var card = Assert.Single(Cards(facts, [Draft("big", "sodium chloride 3%", 1000)]), c => c.Topic == "infusion-prediction");
+        Assert.Equal(CardIndicator.Warning, card.Indicator);
+        Assert.Contains("h old", card.Detail, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Produce_NoWeight_SaysSoAndGivesOnlyALabelledExamplePerLitre()
     {
         var card = Assert.Single(Cards(Woman55(Some.Sodium(118, 4)), [Draft("nacl3", "sodium chloride 3%")]));

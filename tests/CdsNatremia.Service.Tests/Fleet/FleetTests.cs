@@ -22,12 +22,6 @@ namespace CdsNatremia.Service.Tests.Fleet;
 [Collection(FleetCollection.Name)]
 public sealed class FleetTests(ITestOutputHelper output)
 {
-    /// <summary>
-    /// The shared replay store (security-hardening issue) makes a token used on one instance refused on every other.
-    /// Until it is merged, the cross-instance replay check reports its figure without failing; set this to true then.
-    /// </summary>
-    internal static bool SharedReplayStore => false;
-
     private const string ServicePath = "/cds-services/natremia-chart-review";
 
     [SkippableFact]
@@ -142,12 +136,9 @@ public sealed class FleetTests(ITestOutputHelper output)
                 var token = keys.Token(ServicePath, DateTimeOffset.UtcNow);
                 var first = await SendAsync(instances["s1"], keys, ServicePath, Request(), token);
                 var again = await SendAsync(instances["s3"], keys, ServicePath, Request(), token);
-                Figure($"replay: token used on s1 (HTTP {(int)first.StatusCode}), sent again to s3: HTTP {(int)again.StatusCode}{(SharedReplayStore ? string.Empty : " (shared replay store not merged yet: not asserted)")}");
+                Figure($"replay: token used on s1 (HTTP {(int)first.StatusCode}), sent again to s3: HTTP {(int)again.StatusCode}");
                 Assert.Equal(HttpStatusCode.OK, first.StatusCode);
-                if (SharedReplayStore)
-                {
-                    Assert.Equal(HttpStatusCode.Unauthorized, again.StatusCode);
-                }
+                Assert.Equal(HttpStatusCode.Unauthorized, again.StatusCode); // the shared replay store in PostgreSQL (docs/security.md)
             }
             finally
             {
