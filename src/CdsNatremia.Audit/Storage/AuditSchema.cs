@@ -52,6 +52,12 @@ internal static class AuditSchema
             """,
             "CREATE INDEX ix_feedback_card ON feedback (card_uuid)",
         ]),
+        // Advice that is not repeated: each issued card's findings fingerprint under the patient pseudonym.
+        (2,
+        [
+            "CREATE TABLE card_fingerprint (card_uuid TEXT NOT NULL PRIMARY KEY, patient_pseudonym TEXT NOT NULL, fingerprint TEXT NOT NULL)",
+            "CREATE INDEX ix_card_fingerprint_patient ON card_fingerprint (patient_pseudonym, fingerprint)",
+        ]),
     ];
 
     public static int CurrentVersion => Migrations[^1].Version;

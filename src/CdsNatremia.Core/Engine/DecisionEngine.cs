@@ -39,16 +39,23 @@ public sealed class DecisionEngine
             .OrderByDescending(x => x.card.Indicator)
             .ThenBy(x => WorkupLast(x.card))
             .ThenBy(x => x.index)
-            .Select(x => Finish(x.card, request.Hook))
+            .Select(x => Finish(x.card, context))
             .ToList();
     }
 
     /// <summary>
     /// The steps every card passes through once: suggestions ordered and capped (<see cref="SuggestionPolicy"/>) and the
-    /// override reasons of its kind (<see cref="OverrideReasonChoice"/>).
+    /// override reasons of its kind (<see cref="OverrideReasonChoice"/>) and the findings fingerprint (<see cref="FindingsFingerprint"/>).
     /// </summary>
-    private Card Finish(Card card, HookKind hook)
-        => SuggestionPolicy.Apply(card, hook) with { OverrideReasons = OverrideReasonChoice.For(card.Topic, _knowledge) };
+    private Card Finish(Card card, DecisionContext context)
+        => SuggestionPolicy.Apply(card, context.Request.Hook) with
+        {
+            OverrideReasons = OverrideReasonChoice.For(card.Topic, _knowledge),
+            Fingerprint = FindingsFingerprint.Of(card, context),
+        };
+
+    /// <summary>How this engine shows times for a request at <paramref name="now"/> (its display zone).</summary>
+    public Text.TimeDisplay DisplayAt(DateTimeOffset now) => new(_displayZone, now);
 
     /// <summary>0 for a safety card, 1 for the work-up (sodium assessment) card.</summary>
     private static int WorkupLast(Card card) => string.Equals(card.Topic, "sodium-assessment", StringComparison.Ordinal) ? 1 : 0;

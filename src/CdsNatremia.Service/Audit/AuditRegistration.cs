@@ -25,6 +25,7 @@ public static class AuditRegistration
         builder.Services.AddSingleton(new PatientPseudonymizer(key));
         builder.Services.AddSingleton(_ => AuditStoreFactory.Create(options, contentRoot));
         builder.Services.AddSingleton<CardAudit>();
+        builder.Services.AddSingleton<RepeatSuppression>();
         builder.Services.AddHostedService<AuditStartup>();
         builder.Services.AddSingleton<AuditPurgeService>();
         builder.Services.AddHostedService(sp => sp.GetRequiredService<AuditPurgeService>());
