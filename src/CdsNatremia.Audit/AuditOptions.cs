@@ -47,6 +47,13 @@ public sealed class AuditOptions
     [Range(1, 36500)]
     public int RetentionDays { get; set; } = 730;
 
+    /// <summary>
+    /// Hours during which a chart-opening card whose findings a clinician already answered (accepted or overridden) for the
+    /// same patient is shown as information instead of interrupting again. Default 24, a local choice; 0 turns it off.
+    /// </summary>
+    [System.ComponentModel.DataAnnotations.Range(0, 720)]
+    public int RepeatQuietHours { get; set; } = 24;
+
     /// <summary>Hours between two purges by the background service. Default 24.</summary>
     [Range(1, 24 * 31)]
     public int PurgeIntervalHours { get; set; } = 24;

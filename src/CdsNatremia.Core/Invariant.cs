@@ -13,10 +13,4 @@ public static class Invariant
     /// 124.5, 0.45. Round a computed result explicitly before printing it.
     /// </summary>
     public static string Number(double value) => Text.ClinicalNumber.Format(value);
-
-    /// <summary>A time as cards print it: "2026-03-10 06:30 UTC".</summary>
-    public static string Time(DateTimeOffset value) => value.ToUniversalTime().ToString("yyyy-MM-dd HH:mm 'UTC'", CultureInfo.InvariantCulture);
-
-    /// <summary>A short time for summaries: "10 Mar 06:30 UTC".</summary>
-    public static string ShortTime(DateTimeOffset value) => value.ToUniversalTime().ToString("d MMM HH:mm 'UTC'", CultureInfo.InvariantCulture);
 }

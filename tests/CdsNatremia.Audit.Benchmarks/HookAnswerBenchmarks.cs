@@ -92,6 +92,8 @@ public class HookAnswerBenchmarks
         public Task<FeedbackResult> RecordFeedbackAsync(string serviceId, IReadOnlyList<FeedbackEntry> entries, DateTimeOffset receivedAt, CancellationToken cancellationToken)
             => Task.FromResult<FeedbackResult>(new FeedbackResult.Stored(entries.Count, 0));
 
+        public Task<DateTimeOffset?> LastReviewedAsync(string patientPseudonym, string fingerprint, DateTimeOffset since, CancellationToken cancellationToken) => Task.FromResult<DateTimeOffset?>(null);
+
         public Task<IssuedCardRecord?> FindCardAsync(Guid cardUuid, CancellationToken cancellationToken) => Task.FromResult<IssuedCardRecord?>(null);
 
         public Task<IReadOnlyList<FeedbackEntry>> FindFeedbackAsync(Guid cardUuid, CancellationToken cancellationToken) => Task.FromResult<IReadOnlyList<FeedbackEntry>>([]);

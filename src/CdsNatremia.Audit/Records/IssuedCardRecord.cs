@@ -48,6 +48,9 @@ public sealed record IssuedCardRecord
     /// <summary>Suggestion uuid by suggestion key.</summary>
     public required IReadOnlyDictionary<string, Guid> SuggestionUuids { get; init; }
 
+    /// <summary>The card's findings fingerprint (a hash of what it found, no patient data in clear), or null.</summary>
+    public string? FindingsFingerprint { get; init; }
+
     /// <summary>When the card was issued (from the host's TimeProvider).</summary>
     public required DateTimeOffset IssuedAt { get; init; }
 

@@ -70,6 +70,13 @@ internal static class AuditSchema
             "CREATE TABLE used_token (issuer TEXT NOT NULL, jti TEXT NOT NULL, expires_at_ms BIGINT NOT NULL, PRIMARY KEY (issuer, jti))",
             "CREATE INDEX ix_used_token_expires ON used_token (expires_at_ms)",
         ]),
+
+        // Advice that is not repeated: each issued card's findings fingerprint under the patient pseudonym.
+        (4,
+        [
+            "CREATE TABLE card_fingerprint (card_uuid TEXT NOT NULL PRIMARY KEY, patient_pseudonym TEXT NOT NULL, fingerprint TEXT NOT NULL)",
+            "CREATE INDEX ix_card_fingerprint_patient ON card_fingerprint (patient_pseudonym, fingerprint)",
+        ]),
     ];
 
     public static int CurrentVersion => Migrations[^1].Version;

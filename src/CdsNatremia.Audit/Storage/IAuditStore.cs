@@ -26,6 +26,12 @@ public interface IAuditStore : IAsyncDisposable
     /// </summary>
     Task<FeedbackResult> RecordFeedbackAsync(string serviceId, IReadOnlyList<FeedbackEntry> entries, DateTimeOffset receivedAt, CancellationToken cancellationToken);
 
+    /// <summary>
+    /// When a clinician last answered (accepted or overrode) a card with <paramref name="fingerprint"/> for the patient
+    /// <paramref name="patientPseudonym"/>, at or after <paramref name="since"/> (outcome time); null when never.
+    /// </summary>
+    Task<DateTimeOffset?> LastReviewedAsync(string patientPseudonym, string fingerprint, DateTimeOffset since, CancellationToken cancellationToken);
+
     /// <summary>The record of a card, or null when unknown or purged.</summary>
     Task<IssuedCardRecord?> FindCardAsync(Guid cardUuid, CancellationToken cancellationToken);
 

@@ -98,6 +98,12 @@ public abstract class SqlAuditStore : IAuditStore
                     ("@topic", card.Topic), ("@summary", card.Summary), ("@resources", JsonSerializer.Serialize(card.ResourcesUsed, Json)),
                     ("@suggestions", JsonSerializer.Serialize(card.SuggestionUuids.ToDictionary(s => s.Key, s => Id(s.Value)), Json)),
                     ("@at", card.IssuedAt.ToUnixTimeMilliseconds()), ("@test", card.TestTraffic ? 1 : 0), ("@keyid", card.PseudonymKeyId)).ConfigureAwait(false);
+                if (!string.IsNullOrEmpty(card.FindingsFingerprint))
+                {
+                    await ExecuteAsync(connection, transaction, "INSERT INTO card_fingerprint (card_uuid, patient_pseudonym, fingerprint) VALUES (@card, @patient, @fingerprint)", cancellationToken,
+                        ("@card", uuid), ("@patient", card.PatientPseudonym), ("@fingerprint", card.FindingsFingerprint)).ConfigureAwait(false);
+                }
+
                 foreach (var rule in card.RuleIds.Distinct(StringComparer.Ordinal))
                 {
                     await ExecuteAsync(connection, transaction, "INSERT INTO card_rule (card_uuid, rule_id) VALUES (@card, @rule)", cancellationToken,
@@ -193,6 +199,21 @@ public abstract class SqlAuditStore : IAuditStore
         card_uuid, service_id, hook, hook_instance, patient_pseudonym, rule_ids, knowledge_version, software_version,
             indicator, topic, summary, resources_used, suggestion_uuids, issued_at_ms, pseudonym_key_id, test_traffic
         """;
+
+    /// <inheritdoc />
+    public async Task<DateTimeOffset?> LastReviewedAsync(string patientPseudonym, string fingerprint, DateTimeOffset since, CancellationToken cancellationToken)
+    {
+        ArgumentException.ThrowIfNullOrEmpty(patientPseudonym);
+        ArgumentException.ThrowIfNullOrEmpty(fingerprint);
+        await using var connection = await OpenAsync(cancellationToken).ConfigureAwait(false);
+        var value = await ScalarAsync(connection, null,
+            """
+            SELECT MAX(f.outcome_at_ms) FROM feedback f JOIN card_fingerprint c ON c.card_uuid = f.card_uuid
+            WHERE c.patient_pseudonym = @patient AND c.fingerprint = @fingerprint AND f.outcome_at_ms >= @since
+            """,
+            cancellationToken, ("@patient", patientPseudonym), ("@fingerprint", fingerprint), ("@since", since.ToUnixTimeMilliseconds())).ConfigureAwait(false);
+        return value is null or DBNull ? null : DateTimeOffset.FromUnixTimeMilliseconds(Convert.ToInt64(value, System.Globalization.CultureInfo.InvariantCulture));
+    }
 
     /// <inheritdoc />
     public async Task<IssuedCardRecord?> FindCardAsync(Guid cardUuid, CancellationToken cancellationToken)
@@ -334,6 +355,7 @@ public abstract class SqlAuditStore : IAuditStore
             const string Old = "SELECT card_uuid FROM issued_card WHERE issued_at_ms < @cut";
             await ExecuteAsync(connection, transaction, $"DELETE FROM feedback WHERE card_uuid IN ({Old})", cancellationToken, cut).ConfigureAwait(false);
             await ExecuteAsync(connection, transaction, $"DELETE FROM card_rule WHERE card_uuid IN ({Old})", cancellationToken, cut).ConfigureAwait(false);
+            await ExecuteAsync(connection, transaction, $"DELETE FROM card_fingerprint WHERE card_uuid IN ({Old})", cancellationToken, cut).ConfigureAwait(false);
             await ExecuteAsync(connection, transaction, $"DELETE FROM card_suggestion WHERE card_uuid IN ({Old})", cancellationToken, cut).ConfigureAwait(false);
             var deleted = await ExecuteAsync(connection, transaction, "DELETE FROM issued_card WHERE issued_at_ms < @cut", cancellationToken, cut).ConfigureAwait(false);
             await transaction.CommitAsync(cancellationToken).ConfigureAwait(false);

@@ -14,8 +14,8 @@ public static class CardFooter
     private const int MaxSetAsideShown = 20;
 
     /// <summary>Writes the shared closing sections.</summary>
-    public static void Write(DetailWriter detail, PatientFacts facts, IEnumerable<string> sources)
-        => Write(detail, facts, sources, []);
+    public static void Write(DetailWriter detail, PatientFacts facts, IEnumerable<string> sources, TimeDisplay display)
+        => Write(detail, facts, sources, [], display);
 
     /// <summary>
     /// Writes the shared closing sections with the cautions that depend on the request: for a patient under the adult age,
@@ -26,14 +26,14 @@ public static class CardFooter
         Guard.NotNull(context, nameof(context));
         var age = context.Request.Facts.AgeAt(context.Request.Now);
         var adultFrom = context.Options.Severity.AdultFromAgeYears;
-        Write(detail, context.Request.Facts, sources, age < adultFrom ? [SafetyCautions.Paediatric(age.Value, adultFrom)] : []);
+        Write(detail, context.Request.Facts, sources, age < adultFrom ? [SafetyCautions.Paediatric(age.Value, adultFrom)] : [], context.Display);
     }
 
-    private static void Write(DetailWriter detail, PatientFacts facts, IEnumerable<string> sources, IReadOnlyList<string> requestCautions)
+    private static void Write(DetailWriter detail, PatientFacts facts, IEnumerable<string> sources, IReadOnlyList<string> requestCautions, TimeDisplay display)
     {
         Guard.NotNull(detail, nameof(detail));
         Guard.NotNull(facts, nameof(facts));
-        var setAside = facts.SetAside.Where(s => s.State != FactState.NotThisPatient).Select(Cite.SetAside).ToList();
+        var setAside = facts.SetAside.Where(s => s.State != FactState.NotThisPatient).Select(s => Cite.SetAside(s, display)).ToList();
         if (setAside.Count > MaxSetAsideShown)
         {
             var more = setAside.Count - MaxSetAsideShown;

@@ -6,10 +6,11 @@ namespace CdsNatremia.Core.Assessment;
 /// <summary>How a card names the data a step used: value, unit, time, resource, and labels.</summary>
 public static class Cite
 {
-    /// <summary>"Sodium 124 mmol/L at 2026-03-10 06:30 UTC (Observation/na-3; preliminary)".</summary>
-    public static string Result(LabResult result)
+    /// <summary>"Sodium 124 mmol/L at 2026-03-10 06:30 UTC (Observation/na-3; preliminary)", the time in the display zone.</summary>
+    public static string Result(LabResult result, TimeDisplay display)
     {
         Guard.NotNull(result, nameof(result));
+        Guard.NotNull(display, nameof(display));
         var labels = new List<string> { Markdown.Escape(result.Reference) };
         if (result.IsPreliminary)
         {
@@ -33,20 +34,21 @@ public static class Cite
         }
 
         return Invariant.Format(
-            $"{AnalyteUnits.DisplayName(result.Analyte)} {Invariant.Number(result.Value)} {result.Unit} at {Invariant.Time(result.EffectiveAt)} ({string.Join("; ", labels)})");
+            $"{AnalyteUnits.DisplayName(result.Analyte)} {Invariant.Number(result.Value)} {result.Unit} at {display.Time(result.EffectiveAt)} ({string.Join("; ", labels)})");
     }
 
     /// <summary>"Observation/na-9 (Sodium 131 mg/dL, 2026-03-09 08:00 UTC): reason".</summary>
-    public static string SetAside(SetAsideItem item)
+    public static string SetAside(SetAsideItem item, TimeDisplay display)
     {
         Guard.NotNull(item, nameof(item));
+        Guard.NotNull(display, nameof(display));
         if (item.State == FactState.NotThisPatient)
         {
             // Privacy: another patient's data is never shown, not even its id or time.
             return "a resource about another patient (not shown)";
         }
 
-        var when = item.At is { } at ? ", " + Invariant.Time(at) : string.Empty;
+        var when = item.At is { } at ? ", " + display.Time(at) : string.Empty;
         return $"{Markdown.Escape(item.Reference)} ({Markdown.Escape(item.What)}{when}): {Markdown.Escape(item.Reason)}";
     }
 }

@@ -63,7 +63,7 @@ public static class ImperfectSodiumCards
         }
 
         var value = Invariant.Format($"{Bounds.Describe(bound)} mmol/L");
-        var cite = Invariant.Format($"Sodium {value} at {Invariant.Time(bound.EffectiveAt)} ({Markdown.Escape(bound.Reference)}; reported with a comparator: a bound, not a measurement)");
+        var cite = Invariant.Format($"Sodium {value} at {context.Display.Time(bound.EffectiveAt)} ({Markdown.Escape(bound.Reference)}; reported with a comparator: a bound, not a measurement)");
         var findings = new List<string>();
         var steps = new List<string>();
         CardIndicator indicator;
@@ -86,7 +86,7 @@ public static class ImperfectSodiumCards
             findings.Add(Invariant.Format($"Newest sodium {value}: **{atLeast}{name} hyponatremia** ({thresholds.RangeOf(placed)})."));
             steps.Add(Invariant.Format(
                 $"**Severity from a bound**: {cite}. Every value {Bounds.Describe(bound)} mmol/L is in the {name} band{(moreSevereOpen ? " or a more severe one" : string.Empty)} ({thresholds.RangeOf(placed)}; {thresholds.Source})."));
-            summary = Invariant.Format($"Sodium {value} ({atLeast}{name} hyponatremia, {Invariant.ShortTime(bound.EffectiveAt)}) — a bound: measure it, assess symptoms now.");
+            summary = Invariant.Format($"Sodium {value} ({atLeast}{name} hyponatremia, {context.Display.AgeAndTime(bound.EffectiveAt)}) — a bound: measure it, assess symptoms now.");
         }
         else
         {
@@ -99,7 +99,7 @@ public static class ImperfectSodiumCards
         steps.Add("**No rate from a bound**: a bound is not a value, so no rise, fall or correction rate is computed from it; the correction-rate watch uses measured results only.");
         if (context.Sodium.Latest is { } older)
         {
-            steps.Add("**Latest measured sodium** (older than the bound): " + Cite.Result(older) + ".");
+            steps.Add("**Latest measured sodium** (older than the bound): " + Cite.Result(older, context.Display) + ".");
         }
 
         if (context.Request.Facts.SodiumHistoryUnavailable is { } history)
@@ -108,7 +108,7 @@ public static class ImperfectSodiumCards
         }
 
         var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Low sodium work-up** as of {Invariant.Time(context.Request.Now)}. Advisory only."))
+            .Paragraph(Invariant.Format($"**Low sodium work-up** as of {context.Display.Time(context.Request.Now)}. Advisory only."))
             .Bullets("Findings", findings)
             .Numbered("Reasoning (with the data each step used)", steps)
             .Bullets("What clinicians usually consider next",
@@ -116,7 +116,7 @@ public static class ImperfectSodiumCards
                 "Measure the sodium again now (the laboratory can often dilute the sample to report a value), and assess for severe symptoms (vomiting, seizures, drowsiness, cardiorespiratory distress); severe symptoms are an emergency under local protocol.",
                 "The full work-up (tonicity, urine studies, causes) and the correction-rate watch need a measured value.",
             ]);
-        CardFooter.Write(detail, context.Request.Facts, [thresholds.Source]);
+        CardFooter.Write(detail, context.Request.Facts, [thresholds.Source], context.Display);
         return new Card
         {
             Summary = Summary.Fit(summary),
@@ -141,24 +141,24 @@ public static class ImperfectSodiumCards
             .Where(r => r.Value < context.Thresholds.NormalFrom && r.EffectiveAt >= latestUsable.EffectiveAt.AddHours(-lookback))
             .OrderBy(r => r.Value)
             .FirstOrDefault();
-        var reasons = unreadable.Select(Cite.SetAside).ToList();
+        var reasons = unreadable.Select(s => Cite.SetAside(s, context.Display)).ToList();
         var steps = new List<string>
         {
             Invariant.Format($"**Newest sodium could not be used**: {unreadable.Count} sodium result(s) newer than the latest usable one were set aside: {string.Join("; ", reasons)}. A value outside physiological plausibility is never taken as the latest."),
-            "**Latest usable sodium**: " + Cite.Result(latestUsable) + Invariant.Format($", in the normal range ({context.Thresholds.RangeOf(SeverityBand.Normal)}); the newest may differ."),
+            "**Latest usable sodium**: " + Cite.Result(latestUsable, context.Display) + Invariant.Format($", in the normal range ({context.Thresholds.RangeOf(SeverityBand.Normal)}); the newest may differ."),
         };
         if (earlierLow is not null)
         {
             steps.Add(Invariant.Format(
-                $"**Earlier low value**: {Cite.Result(earlierLow)} within the {Invariant.Number(lookback)} h before it; the sodium was recently low, so the unreadable newest result matters more."));
+                $"**Earlier low value**: {Cite.Result(earlierLow, context.Display)} within the {Invariant.Number(lookback)} h before it; the sodium was recently low, so the unreadable newest result matters more."));
         }
 
         var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Sodium check** as of {Invariant.Time(context.Request.Now)}. Advisory only."))
+            .Paragraph(Invariant.Format($"**Sodium check** as of {context.Display.Time(context.Request.Now)}. Advisory only."))
             .Bullets("Findings", ["The **newest sodium result could not be used** (see below); this is not a statement that the sodium is normal."])
             .Numbered("Reasoning (with the data each step used)", steps)
             .Bullets("What clinicians usually consider next", ["Check the newest result in the laboratory system and repeat the sodium."]);
-        CardFooter.Write(detail, context.Request.Facts, [context.Thresholds.Source]);
+        CardFooter.Write(detail, context.Request.Facts, [context.Thresholds.Source], context.Display);
         var first = unreadable[0];
         var summary = Invariant.Format($"Newest sodium could not be used ({ShortReason(first.Reason)}); last usable {Invariant.Number(latestUsable.Value)} mmol/L — recheck sodium.");
         return new Card

@@ -69,14 +69,15 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
         var thresholds = context.Thresholds;
         var labels = latest.IsPreliminary ? ", preliminary" : string.Empty;
         // Tonicity decides the summary's opening: a hypertonic low sodium is "not hypotonic" first, never a low-sodium emergency.
+        // That summary names the evidence and the likely osmole, so it carries the result's age only (the time is in the detail).
         var summary = Summary.Fit(builder.NotHypotonicEvidence is { } evidence
             ? Invariant.Format(
-                $"Not hypotonic: sodium {Invariant.Number(latest.Value)} mmol/L ({thresholds.NameOf(band)} range{labels}, {Invariant.ShortTime(latest.EffectiveAt)}) with {evidence} — {builder.SummaryAction ?? "review"}.")
+                $"Not hypotonic: sodium {Invariant.Number(latest.Value)} mmol/L ({thresholds.NameOf(band)} range{labels}, {context.Display.Age(latest.EffectiveAt)}) with {evidence} — {builder.SummaryAction ?? "review"}.")
             : Invariant.Format(
-                $"Sodium {Invariant.Number(latest.Value)} mmol/L ({thresholds.NameOf(band)} hyponatremia{labels}, {Invariant.ShortTime(latest.EffectiveAt)}) — {builder.SummaryAction ?? "review"}."));
+                $"Sodium {Invariant.Number(latest.Value)} mmol/L ({thresholds.NameOf(band)} hyponatremia{labels}, {context.Display.AgeAndTime(latest.EffectiveAt)}) — {builder.SummaryAction ?? "review"}."));
 
         var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Low sodium work-up** as of {Invariant.Time(context.Request.Now)}. Advisory only."))
+            .Paragraph(Invariant.Format($"**Low sodium work-up** as of {context.Display.Time(context.Request.Now)}. Advisory only."))
             .Bullets("Findings", builder.Findings)
             .Numbered("Reasoning (with the data each step used)", builder.Steps)
             .Bullets("Possible causes to consider", builder.Differential)
@@ -113,7 +114,7 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
                     $"**No usable sodium result.** {sodiumSetAside.Count} sodium result(s) of this patient were received but none could be used, so the service makes **no assessment** and gives no advice on them.")
                 : "**No usable sodium result of this patient** was received, so the service makes **no assessment**.")
             .Bullets("What to do", ["Check the results in the laboratory system, and repeat the sodium if it is needed."]);
-        CardFooter.Write(detail, facts, []);
+        CardFooter.Write(detail, facts, [], context.Display);
         return
         [
             new Card

@@ -37,7 +37,7 @@ public sealed class SodiumSeverityRule : IAssessmentRule
 
         card.Findings.Add(Invariant.Format($"Latest usable sodium {Invariant.Number(latest.Value)} mmol/L: **{name} hyponatremia** ({thresholds.RangeOf(band)})."));
         card.Steps.Add(Invariant.Format(
-            $"**Severity**: {Cite.Result(latest)} is in the {name} band ({thresholds.RangeOf(band)}; {thresholds.Source})."));
+            $"**Severity**: {Cite.Result(latest, context.Display)} is in the {name} band ({thresholds.RangeOf(band)}; {thresholds.Source})."));
 
         var age = context.Sodium.LatestAgeHours ?? 0;
         if (context.Sodium.LatestIsStale)

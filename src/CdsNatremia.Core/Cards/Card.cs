@@ -34,4 +34,7 @@ public sealed record Card
 
     /// <summary>Reasons a clinician may give for overriding the card (codes with display).</summary>
     public IReadOnlyList<CodeRef> OverrideReasons { get; init; } = [];
+
+    /// <summary>The findings fingerprint (<see cref="FindingsFingerprint"/>), set by the engine; empty until then.</summary>
+    public string Fingerprint { get; init; } = string.Empty;
 }

@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 
@@ -31,7 +32,7 @@ public sealed record Allowance(CorrectionEpisode Episode, RateWindow Day, RateWi
         }
 
         var limits = options.Resolve();
-        var factors = HighRiskFactors.Find(context.Request.Facts, HighRiskFactors.LowestOfLowStretch(context.Sodium, episode.Nadir, context.Thresholds.NormalFrom), context.Knowledge, options);
+        var factors = HighRiskFactors.Find(context.Request.Facts, HighRiskFactors.LowestOfLowStretch(context.Sodium, episode.Nadir, context.Thresholds.NormalFrom), context.Knowledge, options, context.Display);
         var now = context.Request.Now;
         var at = episode.Latest.EffectiveAt > now ? episode.Latest.EffectiveAt : now;
         return new Allowance(
@@ -62,18 +63,19 @@ public sealed record Allowance(CorrectionEpisode Episode, RateWindow Day, RateWi
     public RateWindow? Overcorrected => new[] { Day, TwoDays }.FirstOrDefault(w => w.Status == RateStatus.AtOrPast || w.PassedAt is not null);
 
     /// <summary>Lines for a card: where the correction stands and what is left.</summary>
-    public IReadOnlyList<string> Describe(CorrectionRateOptions options)
+    public IReadOnlyList<string> Describe(CorrectionRateOptions options, TimeDisplay display)
     {
+        Guard.NotNull(display, nameof(display));
         Guard.NotNull(options, nameof(options));
         var lines = new List<string>();
         if (!Episode.IsRising)
         {
             lines.Add(Invariant.Format(
-                $"No rise measured yet in this episode: the latest sodium is the lowest ({RateText.Mmol(Episode.Nadir.Value)} at {Invariant.Time(Episode.Nadir.EffectiveAt)}), so the windows count from that result."));
+                $"No rise measured yet in this episode: the latest sodium is the lowest ({RateText.Mmol(Episode.Nadir.Value)} at {display.Time(Episode.Nadir.EffectiveAt)}), so the windows count from that result."));
         }
 
-        lines.Add(RateText.Window(Day, options));
-        lines.Add(RateText.Window(TwoDays, options));
+        lines.Add(RateText.Window(Day, options, display));
+        lines.Add(RateText.Window(TwoDays, options, display));
         lines.Add(RateText.HighRisk(Factors, Limits));
         lines.Add(Invariant.Format($"**Allowance left now**: {RateText.Mmol(Math.Max(0, Remaining))} (the smaller of the two windows; {Binding.LimitLabel})."));
         return lines;

@@ -44,7 +44,7 @@ public sealed class CorrectionRateCardProducer : ICardProducer
         }
 
         var limits = options.Resolve();
-        var factors = HighRiskFactors.Find(request.Facts, HighRiskFactors.LowestOfLowStretch(context.Sodium, episode.Nadir, context.Thresholds.NormalFrom), context.Knowledge, options);
+        var factors = HighRiskFactors.Find(request.Facts, HighRiskFactors.LowestOfLowStretch(context.Sodium, episode.Nadir, context.Thresholds.NormalFrom), context.Knowledge, options, context.Display);
         var highRisk = factors.Count > 0;
         var day = RateWindows.Measure(episode, episode.Latest.EffectiveAt, 24, limits, highRisk, request.Now, options);
         var twoDays = RateWindows.Measure(episode, episode.Latest.EffectiveAt, 48, limits, highRisk, request.Now, options);
@@ -76,36 +76,36 @@ public sealed class CorrectionRateCardProducer : ICardProducer
 
         var findings = new List<string>
         {
-            "Start (nadir of this episode): " + Cite.Result(episode.Nadir),
-            "Latest: " + Cite.Result(episode.Latest),
+            "Start (nadir of this episode): " + Cite.Result(episode.Nadir, context.Display),
+            "Latest: " + Cite.Result(episode.Latest, context.Display),
             Invariant.Format($"Rise since the nadir: {RateText.Mmol(episode.RiseSinceNadir)} in {RateText.Hours(episode.HoursSinceNadir)} h."),
             Invariant.Format($"Limit reached or approached: {RateText.Mmol(worst.Limit)} ({worst.LimitLabel}, {Markdown.Escape(limits.Name)}); rise in that window {RateText.Mmol(worst.Rise)}; {RateText.Status(worst.Status)}."),
         };
         if (worst.PassedAt is { } passed)
         {
             findings.Add(Invariant.Format(
-                $"**The limit was passed**: {Cite.Result(passed)} is {RateText.Mmol(passed.Value - worst.Baseline.Value)} above {Invariant.Number(worst.Baseline.Value)} mmol/L ({Markdown.Escape(worst.Baseline.Reference)}); sodium has come down since."));
+                $"**The limit was passed**: {Cite.Result(passed, context.Display)} is {RateText.Mmol(passed.Value - worst.Baseline.Value)} above {Invariant.Number(worst.Baseline.Value)} mmol/L ({Markdown.Escape(worst.Baseline.Reference)}); sodium has come down since."));
         }
 
         if (worst.HoursLeft is { } left)
         {
             findings.Add(left > 0
-                ? Invariant.Format($"Hours left in that window: {RateText.Hours(left)} h (it ends {Invariant.Time(worst.End)}).")
-                : Invariant.Format($"That window ended at {Invariant.Time(worst.End)}."));
+                ? Invariant.Format($"Hours left in that window: {RateText.Hours(left)} h (it ends {context.Display.Time(worst.End)}).")
+                : Invariant.Format($"That window ended at {context.Display.Time(worst.End)}."));
         }
 
         if (worst.ProjectedRise is { } projected)
         {
-            findings.Add(Invariant.Format($"If the current rate goes on, the rise would be {RateText.MmolRounded(projected)} by {Invariant.Time(worst.End)}."));
+            findings.Add(Invariant.Format($"If the current rate goes on, the rise would be {RateText.MmolRounded(projected)} by {context.Display.Time(worst.End)}."));
         }
 
         findings.Add(RateText.HighRisk(factors, limits));
 
         var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Correction-rate watch** as of {Invariant.Time(context.Request.Now)}. Advisory only."))
+            .Paragraph(Invariant.Format($"**Correction-rate watch** as of {context.Display.Time(context.Request.Now)}. Advisory only."))
             .Bullets("Findings", findings)
-            .Numbered("Computation (with its inputs)", Steps(episode, day, twoDays, options))
-            .Bullets("Sodium results in this episode", episode.Results.Select(Cite.Result))
+            .Numbered("Computation (with its inputs)", Steps(episode, day, twoDays, options, context.Display))
+            .Bullets("Sodium results in this episode", episode.Results.Select(r => Cite.Result(r, context.Display)))
             .Bullets("Options clinicians usually discuss (with a senior clinician, under local protocol; not orders)",
             [
                 "Pausing or stopping therapy that raises sodium (hypertonic or isotonic saline, vasopressin-receptor antagonists, oral salt or urea) and reviewing urine output, since a large dilute urine output can raise sodium quickly.",
@@ -137,16 +137,16 @@ public sealed class CorrectionRateCardProducer : ICardProducer
         };
     }
 
-    private static List<string> Steps(CorrectionEpisode episode, RateWindow day, RateWindow twoDays, CorrectionRateOptions options)
+    private static List<string> Steps(CorrectionEpisode episode, RateWindow day, RateWindow twoDays, CorrectionRateOptions options, TimeDisplay display)
     {
         var steps = new List<string>
         {
             Invariant.Format(
-                $"**Nadir**: the lowest usable sodium in the {RateText.Hours(episode.LookbackHours)} h before the latest result: {Invariant.Number(episode.Nadir.Value)} mmol/L at {Invariant.Time(episode.Nadir.EffectiveAt)} ({Markdown.Escape(episode.Nadir.Reference)}); {episode.Results.Count} result(s) from then on."),
+                $"**Nadir**: the lowest usable sodium in the {RateText.Hours(episode.LookbackHours)} h before the latest result: {Invariant.Number(episode.Nadir.Value)} mmol/L at {display.Time(episode.Nadir.EffectiveAt)} ({Markdown.Escape(episode.Nadir.Reference)}); {episode.Results.Count} result(s) from then on."),
             Invariant.Format(
                 $"**Rise since the nadir** = {Invariant.Number(episode.Latest.Value)} − {Invariant.Number(episode.Nadir.Value)} = {RateText.Mmol(episode.RiseSinceNadir)} over {RateText.Hours(episode.HoursSinceNadir)} h."),
-            RateText.Window(day, options),
-            RateText.Window(twoDays, options),
+            RateText.Window(day, options, display),
+            RateText.Window(twoDays, options, display),
         };
         if (episode.SameTimeAsLatest.Count > 0)
         {
@@ -190,11 +190,11 @@ public sealed class CorrectionRateCardProducer : ICardProducer
         var summary = Summary.Fit(Invariant.Format(
             $"Sodium still {band} at {Invariant.Number(latest.Value)} mmol/L: {changeWord} {RateText.Mmol(Math.Abs(change))} in {RateText.Hours(hours)} h, below the minimum goal of {Invariant.Number(goal)} mmol/L a day."));
         var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Correction-rate watch** as of {Invariant.Time(context.Request.Now)}. Advisory only."))
+            .Paragraph(Invariant.Format($"**Correction-rate watch** as of {context.Display.Time(context.Request.Now)}. Advisory only."))
             .Bullets("Findings",
             [
-                "About a day earlier: " + Cite.Result(earlier),
-                "Latest: " + Cite.Result(latest),
+                "About a day earlier: " + Cite.Result(earlier, context.Display),
+                "Latest: " + Cite.Result(latest, context.Display),
                 Invariant.Format($"The sodium is still in the {band} band (below {Invariant.Number(context.Thresholds.ModerateFrom)} mmol/L), so a slow or absent rise may leave a dangerous state for longer."),
                 RateText.HighRisk(factors, limits),
             ])

@@ -6,7 +6,7 @@ namespace CdsNatremia.Core.CorrectionRate;
 /// <summary>
 /// Which draft orders an order hook speaks about: on order-select only the selected ones (a selection is a reference
 /// such as "MedicationRequest/draft-nacl3", matched to the order's reference, to its id, or as the end of an absolute
-/// URL); on order-sign all of them.
+/// URL); on order-sign all of them. The one rule for every producer that speaks about draft orders.
 /// </summary>
 public static class DraftOrders
 {
@@ -19,7 +19,15 @@ public static class DraftOrders
             return request.DraftOrders;
         }
 
-        return request.DraftOrders.Where(o => request.SelectedOrders.Any(s => IsSelected(s, o))).ToList();
+        return request.DraftOrders.Where(o => IsConsidered(request, o)).ToList();
+    }
+
+    /// <summary>True when the hook speaks about <paramref name="order"/>: any draft on order-sign, a selected one on order-select.</summary>
+    public static bool IsConsidered(DecisionRequest request, MedicationFact order)
+    {
+        Guard.NotNull(request, nameof(request));
+        Guard.NotNull(order, nameof(order));
+        return request.Hook != HookKind.OrderSelect || request.SelectedOrders.Any(s => IsSelected(s, order));
     }
 
     private static bool IsSelected(string selection, MedicationFact order)

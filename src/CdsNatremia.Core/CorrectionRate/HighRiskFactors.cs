@@ -56,8 +56,10 @@ public static class HighRiskFactors
     /// <param name="nadir">The lowest sodium of the current episode, or null.</param>
     /// <param name="knowledge">The loaded code sets.</param>
     /// <param name="options">Thresholds.</param>
-    public static IReadOnlyList<HighRiskFactor> Find(PatientFacts facts, LabResult? nadir, KnowledgeBase knowledge, CorrectionRateOptions options)
+    /// <param name="display">How times are printed (default UTC).</param>
+    public static IReadOnlyList<HighRiskFactor> Find(PatientFacts facts, LabResult? nadir, KnowledgeBase knowledge, CorrectionRateOptions options, TimeDisplay? display = null)
     {
+        display ??= TimeDisplay.Utc(default);
         Guard.NotNull(facts, nameof(facts));
         Guard.NotNull(knowledge, nameof(knowledge));
         Guard.NotNull(options, nameof(options));
@@ -66,7 +68,7 @@ public static class HighRiskFactors
         {
             found.Add(new HighRiskFactor(
                 "nadir",
-                Invariant.Format($"lowest sodium {Invariant.Number(nadir.Value)} mmol/L at {Invariant.Time(nadir.EffectiveAt)} ({Markdown.Escape(nadir.Reference)}) is at or below {Invariant.Number(options.HighRiskNadirAtOrBelow)} mmol/L"),
+                Invariant.Format($"lowest sodium {Invariant.Number(nadir.Value)} mmol/L at {display.Time(nadir.EffectiveAt)} ({Markdown.Escape(nadir.Reference)}) is at or below {Invariant.Number(options.HighRiskNadirAtOrBelow)} mmol/L"),
                 nadir.Reference));
         }
 
@@ -85,7 +87,7 @@ public static class HighRiskFactors
             {
                 found.Add(new HighRiskFactor(
                     "potassium",
-                    Invariant.Format($"low potassium: {Invariant.Number(potassium.Value)} mmol/L at {Invariant.Time(potassium.EffectiveAt)} ({Markdown.Escape(potassium.Reference)}), below {basis} of {Invariant.Number(below)} mmol/L"),
+                    Invariant.Format($"low potassium: {Invariant.Number(potassium.Value)} mmol/L at {display.Time(potassium.EffectiveAt)} ({Markdown.Escape(potassium.Reference)}), below {basis} of {Invariant.Number(below)} mmol/L"),
                     potassium.Reference));
                 break;
             }

@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
@@ -37,7 +38,7 @@ public sealed class HighRiskRule : IAssessmentRule
         }
 
         var lowest = HighRiskFactors.LowestOfLowStretch(context.Sodium, episode.Nadir, context.Thresholds.NormalFrom);
-        var factors = HighRiskFactors.Find(context.Request.Facts, lowest, context.Knowledge, options);
+        var factors = HighRiskFactors.Find(context.Request.Facts, lowest, context.Knowledge, options, context.Display);
         if (factors.Count == 0)
         {
             return;

@@ -77,7 +77,7 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
             water = BodyWater.Estimate(weight.Value, facts.Sex, age, options);
             used.Add(weight.Reference);
             steps.Add(Invariant.Format(
-                $"**Total body water** = weight {Invariant.Number(weight.Value)} kg ({Markdown.Escape(weight.Reference)}, {Invariant.Time(weight.EffectiveAt)}) × {Invariant.Number(water.Fraction)} ({water.Why}) = **{Invariant.Number(water.Litres)} L**."));
+                $"**Total body water** = weight {Invariant.Number(weight.Value)} kg ({Markdown.Escape(weight.Reference)}, {context.Display.Time(weight.EffectiveAt)}) × {Invariant.Number(water.Fraction)} ({water.Why}) = **{Invariant.Number(water.Litres)} L**."));
         }
         else
         {
@@ -91,7 +91,7 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
         if (serum is not null)
         {
             used.Add(serum.Reference);
-            findings.Add("Serum sodium used: " + Cite.Result(serum));
+            findings.Add("Serum sodium used: " + Cite.Result(serum, context.Display));
             if (context.Sodium.LatestIsStale)
             {
                 findings.Add(Invariant.Format(
@@ -223,10 +223,10 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
                 : Invariant.Format($"{Capital(first)} order: {verdict} (see detail)."));
 
         var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Infusion effect prediction** as of {Invariant.Time(context.Request.Now)} (Adrogué–Madias formula). Advisory only."))
+            .Paragraph(Invariant.Format($"**Infusion effect prediction** as of {context.Display.Time(context.Request.Now)} (Adrogué–Madias formula). Advisory only."))
             .Bullets("Findings", findings)
             .Numbered("Computation (with its inputs)", steps)
-            .Bullets("Where the correction stands (limits)", allowance?.Describe(rateOptions) ?? [])
+            .Bullets("Where the correction stands (limits)", allowance?.Describe(rateOptions, context.Display) ?? [])
             .Bullets("Points clinicians usually weigh (under local protocol; not orders)",
             [
                 "The formula assumes no other gain or loss of water or salt: urine output, especially a large dilute urine output once the cause is removed, can make the real rise larger than predicted.",
@@ -269,7 +269,7 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
         var mayFall = false;
         foreach (var infusate in orders.Select(o => o.Recognition.Infusate).OfType<Infusate>().DistinctBy(i => i.Kind))
         {
-            var (fall, lines) = urine.Compare(infusate);
+            var (fall, lines) = urine.Compare(infusate, context.Display);
             mayFall |= fall;
             var compared = string.Join("; ", lines);
             findings.Add(fall

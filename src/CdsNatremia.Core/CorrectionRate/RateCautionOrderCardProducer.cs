@@ -52,12 +52,13 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
     public bool Handles(HookKind hook) => hook is HookKind.OrderSelect or HookKind.OrderSign;
 
     /// <summary>The sentence for a chart that shows over-correction, naming the window and its peak.</summary>
-    public static string ReloweringText(RateWindow window)
+    public static string ReloweringText(RateWindow window, TimeDisplay display)
     {
         Guard.NotNull(window, nameof(window));
+        Guard.NotNull(display, nameof(display));
         var peak = window.PassedAt ?? window.Latest;
         return Invariant.Format(
-            $"**The chart shows over-correction**: {Cite.Result(peak)} is {RateText.Mmol(peak.Value - window.Baseline.Value)} above {Invariant.Number(window.Baseline.Value)} mmol/L ({Markdown.Escape(window.Baseline.Reference)}), at or past the {RateText.Mmol(window.Limit)} limit ({window.LimitLabel}). Giving desmopressin deliberately to slow or re-lower the sodium after over-correction is a **recognised strategy under senior care** (local protocol), with sodium checked often.");
+            $"**The chart shows over-correction**: {Cite.Result(peak, display)} is {RateText.Mmol(peak.Value - window.Baseline.Value)} above {Invariant.Number(window.Baseline.Value)} mmol/L ({Markdown.Escape(window.Baseline.Reference)}), at or past the {RateText.Mmol(window.Limit)} limit ({window.LimitLabel}). Giving desmopressin deliberately to slow or re-lower the sodium after over-correction is a **recognised strategy under senior care** (local protocol), with sodium checked often.");
     }
 
     /// <inheritdoc />
@@ -121,7 +122,7 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
         if (allowance is not null)
         {
             used.Add(allowance.Episode.Latest.Reference);
-            findings.Add("Latest sodium: " + Cite.Result(allowance.Episode.Latest));
+            findings.Add("Latest sodium: " + Cite.Result(allowance.Episode.Latest, context.Display));
         }
         else
         {
@@ -133,9 +134,9 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
             : "The 2014 European guideline recommends against vasopressin-receptor antagonists in moderate or profound hyponatraemia; the latest usable sodium is not in those bands.");
 
         var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**A vasopressin-receptor antagonist is being ordered** as of {Invariant.Time(context.Request.Now)}. Advisory only."))
+            .Paragraph(Invariant.Format($"**A vasopressin-receptor antagonist is being ordered** as of {context.Display.Time(context.Request.Now)}. Advisory only."))
             .Bullets("Findings", findings)
-            .Bullets("Where the correction stands (limits)", allowance?.Describe(context.Options.CorrectionRate) ?? [])
+            .Bullets("Where the correction stands (limits)", allowance?.Describe(context.Options.CorrectionRate, context.Display) ?? [])
             .Bullets("Points clinicians usually weigh (under local protocol; not orders)",
             [
                 "Whether a vaptan is the right treatment at all here (guideline, liver, duration), decided with a senior clinician.",
@@ -167,7 +168,7 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
         if (allowance is not null)
         {
             used.Add(allowance.Episode.Latest.Reference);
-            findings.Add("Latest sodium: " + Cite.Result(allowance.Episode.Latest));
+            findings.Add("Latest sodium: " + Cite.Result(allowance.Episode.Latest, context.Display));
         }
         else
         {
@@ -176,13 +177,13 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
 
         if (overcorrected is not null)
         {
-            findings.Add(ReloweringText(overcorrected));
+            findings.Add(ReloweringText(overcorrected, context.Display));
         }
 
         var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Desmopressin is being ordered** as of {Invariant.Time(context.Request.Now)}: it lowers sodium. Advisory only."))
+            .Paragraph(Invariant.Format($"**Desmopressin is being ordered** as of {context.Display.Time(context.Request.Now)}: it lowers sodium. Advisory only."))
             .Bullets("Findings", findings)
-            .Bullets("Where the correction stands (limits)", allowance?.Describe(context.Options.CorrectionRate) ?? [])
+            .Bullets("Where the correction stands (limits)", allowance?.Describe(context.Options.CorrectionRate, context.Display) ?? [])
             .Bullets("Points clinicians usually weigh (under local protocol; not orders)",
             [
                 "Checking sodium often while desmopressin acts and after it is stopped, at the interval local protocol sets, and matching fluid intake to the plan.",

@@ -23,16 +23,16 @@ internal static class RateText
     };
 
     /// <summary>One computation step for a window, with its inputs.</summary>
-    public static string Window(RateWindow w, CorrectionRateOptions options)
+    public static string Window(RateWindow w, CorrectionRateOptions options, TimeDisplay display)
     {
         var kind = w.AnchoredAtNadir
-            ? Invariant.Format($"anchored at the nadir, {Invariant.Time(w.Start)} to {Invariant.Time(w.End)}")
-            : Invariant.Format($"the {Hours(w.LengthHours)} h ending {Invariant.Time(w.End)}, from {Invariant.Time(w.Start)}");
+            ? Invariant.Format($"anchored at the nadir, {display.Time(w.Start)} to {display.Time(w.End)}")
+            : Invariant.Format($"the {Hours(w.LengthHours)} h ending {display.Time(w.End)}, from {display.Time(w.Start)}");
         var rise = ReferenceEquals(w.Baseline, w.Latest)
-            ? Invariant.Format($"one value only, {Invariant.Number(w.Latest.Value)} mmol/L ({Markdown.Escape(w.Latest.Reference)}, {Invariant.Time(w.Latest.EffectiveAt)}), so no rise measured")
+            ? Invariant.Format($"one value only, {Invariant.Number(w.Latest.Value)} mmol/L ({Markdown.Escape(w.Latest.Reference)}, {display.Time(w.Latest.EffectiveAt)}), so no rise measured")
             : w.SpanTooShort
-                ? Invariant.Format($"{Invariant.Number(w.Baseline.Value)} ({Markdown.Escape(w.Baseline.Reference)}, {Invariant.Time(w.Baseline.EffectiveAt)}) and {Invariant.Number(w.Latest.Value)} ({Markdown.Escape(w.Latest.Reference)}, {Invariant.Time(w.Latest.EffectiveAt)}) are only {Hours(w.ElapsedHours)} h apart, less than the {Hours(options.MinimumRateSpanHours)} h minimum span, so no rate is computed from them (common practice)")
-                : Invariant.Format($"rise = {Invariant.Number(w.Latest.Value)} ({Markdown.Escape(w.Latest.Reference)}, {Invariant.Time(w.Latest.EffectiveAt)}) − {Invariant.Number(w.Baseline.Value)} ({Markdown.Escape(w.Baseline.Reference)}, {Invariant.Time(w.Baseline.EffectiveAt)}) = **{Mmol(w.Rise)}** over {Hours(w.ElapsedHours)} h");
+                ? Invariant.Format($"{Invariant.Number(w.Baseline.Value)} ({Markdown.Escape(w.Baseline.Reference)}, {display.Time(w.Baseline.EffectiveAt)}) and {Invariant.Number(w.Latest.Value)} ({Markdown.Escape(w.Latest.Reference)}, {display.Time(w.Latest.EffectiveAt)}) are only {Hours(w.ElapsedHours)} h apart, less than the {Hours(options.MinimumRateSpanHours)} h minimum span, so no rate is computed from them (common practice)")
+                : Invariant.Format($"rise = {Invariant.Number(w.Latest.Value)} ({Markdown.Escape(w.Latest.Reference)}, {display.Time(w.Latest.EffectiveAt)}) − {Invariant.Number(w.Baseline.Value)} ({Markdown.Escape(w.Baseline.Reference)}, {display.Time(w.Baseline.EffectiveAt)}) = **{Mmol(w.Rise)}** over {Hours(w.ElapsedHours)} h");
         var heading = w.MeasuredOverLongerSpan
             ? Invariant.Format($"**{Hours(w.LengthHours)}-h limit, rise measured over {Hours(w.ElapsedHours)} h** (no result at the window's start, so the last one before it is the baseline; the rise within any {Hours(w.LengthHours)} h may be smaller)")
             : Invariant.Format($"**{Hours(w.LengthHours)}-h window**");
@@ -51,8 +51,8 @@ internal static class RateText
         if (w.HoursLeft is { } left)
         {
             text += left > 0
-                ? Invariant.Format($"; {Hours(left)} h left in the window (to {Invariant.Time(w.End)})")
-                : Invariant.Format($"; the window ended at {Invariant.Time(w.End)}");
+                ? Invariant.Format($"; {Hours(left)} h left in the window (to {display.Time(w.End)})")
+                : Invariant.Format($"; the window ended at {display.Time(w.End)}");
         }
 
         if (w.ProjectedRise is { } projected && w.ElapsedHours > 0)
@@ -60,7 +60,7 @@ internal static class RateText
             var rate = w.Rise / w.ElapsedHours;
             var toEnd = (w.End - w.Latest.EffectiveAt).TotalHours;
             text += Invariant.Format(
-                $". Projection: {Invariant.Number(Math.Round(rate, 2))} mmol/L per h ({Mmol(w.Rise)} / {Hours(w.ElapsedHours)} h) × {Hours(toEnd)} h to the window's end + {Mmol(w.Rise)} = **{MmolRounded(projected)}** by {Invariant.Time(w.End)} if the current rate goes on");
+                $". Projection: {Invariant.Number(Math.Round(rate, 2))} mmol/L per h ({Mmol(w.Rise)} / {Hours(w.ElapsedHours)} h) × {Hours(toEnd)} h to the window's end + {Mmol(w.Rise)} = **{MmolRounded(projected)}** by {display.Time(w.End)} if the current rate goes on");
         }
 
         if (w.MixedSpecimens)

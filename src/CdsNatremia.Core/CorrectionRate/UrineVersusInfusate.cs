@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
@@ -39,7 +40,7 @@ public sealed record UrineVersusInfusate(LabResult? Osmolality, LabResult? Sodiu
     }
 
     /// <summary>The comparison with one infusate: whether the prediction holds, and each comparison made, in words.</summary>
-    public (bool MayFall, IReadOnlyList<string> Lines) Compare(Infusate infusate)
+    public (bool MayFall, IReadOnlyList<string> Lines) Compare(Infusate infusate, TimeDisplay display)
     {
         Guard.NotNull(infusate, nameof(infusate));
         var lines = new List<string>();
@@ -49,7 +50,7 @@ public sealed record UrineVersusInfusate(LabResult? Osmolality, LabResult? Sodiu
             var above = osm.Value > infusate.Osmolality;
             mayFall |= above;
             lines.Add(Invariant.Format(
-                $"urine osmolality {Invariant.Number(osm.Value)} mOsm/kg ({Cite.Result(osm)}) is {(above ? "**above**" : "not above")} the fluid's {Invariant.Number(infusate.Osmolality)} mOsm/kg"));
+                $"urine osmolality {Invariant.Number(osm.Value)} mOsm/kg ({Cite.Result(osm, display)}) is {(above ? "**above**" : "not above")} the fluid's {Invariant.Number(infusate.Osmolality)} mOsm/kg"));
         }
 
         if (Sodium is { } una)
@@ -61,18 +62,18 @@ public sealed record UrineVersusInfusate(LabResult? Osmolality, LabResult? Sodiu
                 var above = sum > fluid;
                 mayFall |= above;
                 lines.Add(Invariant.Format(
-                    $"urine sodium + potassium = {Invariant.Number(una.Value)} + {Invariant.Number(uk.Value)} = {Invariant.Number(sum)} mmol/L ({Cite.Result(una)}; {Cite.Result(uk)}) is {(above ? "**above**" : "not above")} the fluid's sodium + potassium of {Invariant.Number(fluid)} mmol/L"));
+                    $"urine sodium + potassium = {Invariant.Number(una.Value)} + {Invariant.Number(uk.Value)} = {Invariant.Number(sum)} mmol/L ({Cite.Result(una, display)}; {Cite.Result(uk, display)}) is {(above ? "**above**" : "not above")} the fluid's sodium + potassium of {Invariant.Number(fluid)} mmol/L"));
             }
             else if (una.Value > fluid)
             {
                 mayFall = true;
                 lines.Add(Invariant.Format(
-                    $"urine sodium alone, {Invariant.Number(una.Value)} mmol/L ({Cite.Result(una)}), is **above** the fluid's sodium + potassium of {Invariant.Number(fluid)} mmol/L (urine potassium not available; it would only add to the sum)"));
+                    $"urine sodium alone, {Invariant.Number(una.Value)} mmol/L ({Cite.Result(una, display)}), is **above** the fluid's sodium + potassium of {Invariant.Number(fluid)} mmol/L (urine potassium not available; it would only add to the sum)"));
             }
             else
             {
                 lines.Add(Invariant.Format(
-                    $"urine sodium {Invariant.Number(una.Value)} mmol/L ({Cite.Result(una)}) is not above the fluid's {Invariant.Number(fluid)} mmol/L, but without a urine potassium the sum of urine sodium and potassium cannot be compared"));
+                    $"urine sodium {Invariant.Number(una.Value)} mmol/L ({Cite.Result(una, display)}) is not above the fluid's {Invariant.Number(fluid)} mmol/L, but without a urine potassium the sum of urine sodium and potassium cannot be compared"));
             }
         }
 

@@ -28,7 +28,7 @@ public sealed class DrugCauseRule : IAssessmentRule
         }
 
         var fall = DrugCauseAnalysis.Fall(context);
-        var implicated = DrugCauseAnalysis.Find(sets, context.Request.Facts.Medications, fall);
+        var implicated = DrugCauseAnalysis.Find(sets, context.Request.Facts.Medications, fall, context.Display);
         if (implicated.Count == 0)
         {
             return;
@@ -36,7 +36,7 @@ public sealed class DrugCauseRule : IAssessmentRule
 
         card.RuleIds.Add(RuleId);
         card.Sources.Add("Drug groups and codes: CdsNatremia knowledge files (profiles/valuesets; each code's source is listed in its file)");
-        card.Steps.Add(FallStep(fall));
+        card.Steps.Add(FallStep(fall, context.Display));
         if (fall?.Before is { } before)
         {
             card.ResourcesUsed.Add(before.Reference);
@@ -93,17 +93,17 @@ public sealed class DrugCauseRule : IAssessmentRule
         }
     }
 
-    private static string FallStep(SodiumFall? fall)
+    private static string FallStep(SodiumFall? fall, TimeDisplay display)
     {
         if (fall is null)
         {
             return "**The fall in sodium**: no low sodium to set the medicines against.";
         }
 
-        var first = Invariant.Format($"{Invariant.Number(fall.FirstLow.Value)} mmol/L at {Invariant.Time(fall.FirstLow.EffectiveAt)} ({Markdown.Escape(fall.FirstLow.Reference)})");
+        var first = Invariant.Format($"{Invariant.Number(fall.FirstLow.Value)} mmol/L at {display.Time(fall.FirstLow.EffectiveAt)} ({Markdown.Escape(fall.FirstLow.Reference)})");
         return fall.Before is { } before
             ? Invariant.Format(
-                $"**The fall in sodium**: {Invariant.Number(before.Value)} mmol/L at {Invariant.Time(before.EffectiveAt)} ({Markdown.Escape(before.Reference)}) before the fall; {first} is the first result near the lowest level of this low stretch. A medicine started before that first low result is a likely contributor; one started on or after it, unlikely.")
+                $"**The fall in sodium**: {Invariant.Number(before.Value)} mmol/L at {display.Time(before.EffectiveAt)} ({Markdown.Escape(before.Reference)}) before the fall; {first} is the first result near the lowest level of this low stretch. A medicine started before that first low result is a likely contributor; one started on or after it, unlikely.")
             : Invariant.Format(
                 $"**The fall in sodium**: no earlier higher sodium is on record; the first low result is {first}, so when the fall began is unknown.");
     }

@@ -21,8 +21,8 @@ public sealed class DrugOrderWarningProducer : ICardProducer
     /// <summary>The desmopressin set's id: it lowers sodium, and its card says so (one card per order).</summary>
     public const string DesmopressinSetId = "drug-desmopressin";
 
-    /// <summary>Our override-reason code system's id in the knowledge base.</summary>
-    public const string OverrideReasonSystemId = "override-reason";
+    /// <summary>Our override-reason code system's id in the knowledge base (<see cref="OverrideReasonChoice.SystemId"/>).</summary>
+    public const string OverrideReasonSystemId = OverrideReasonChoice.SystemId;
 
     /// <inheritdoc />
     public string RuleId => "drug.order-warning";
@@ -39,9 +39,7 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         var sets = DrugCauseSets.Causes(context.Knowledge)
             .Where(s => options.WarnOnSecondaryTier || s.Tier == EvidenceTier.Primary)
             .ToList();
-        var drafts = request.Hook == HookKind.OrderSelect
-            ? request.DraftOrders.Where(d => IsSelected(d, request.SelectedOrders)).ToList()
-            : request.DraftOrders.ToList();
+        var drafts = DraftOrders.Considered(request);
         var implicatedDrafts = drafts
             .Select(d => (Draft: d, Matches: MedicationMatching.MatchAll(sets, d).ToList()))
             .Where(x => x.Matches.Count > 0)
@@ -58,7 +56,7 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         }
 
         var fall = DrugCauseAnalysis.Fall(context);
-        var existing = DrugCauseAnalysis.Find(sets, request.Facts.Medications, fall);
+        var existing = DrugCauseAnalysis.Find(sets, request.Facts.Medications, fall, context.Display);
         return implicatedDrafts
             .DistinctBy(x => x.Draft.Reference, StringComparer.Ordinal)
             .Select(x => Build(context, x.Draft, x.Matches, reason, existing, implicatedDrafts.Select(o => o.Draft).Where(o => o.Reference != x.Draft.Reference).ToList(), sets))
@@ -75,7 +73,7 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         Guard.NotNull(draft, nameof(draft));
         var options = context.Options.DrugCause;
         var request = context.Request;
-        if (request.Hook == HookKind.OrderSelect && !IsSelected(draft, request.SelectedOrders))
+        if (!DraftOrders.IsConsidered(request, draft))
         {
             return false;
         }
@@ -88,10 +86,6 @@ public sealed class DrugOrderWarningProducer : ICardProducer
 
         return OrderWarningReason.Decide(context.Sodium.Results, context.Thresholds.NormalFrom, options, request.Now, request.Facts.AgeAt(request.Now)) is not null;
     }
-
-    private static bool IsSelected(MedicationFact draft, IReadOnlyList<string> selections)
-        => selections.Any(s => string.Equals(s, draft.Reference, StringComparison.Ordinal)
-            || s.EndsWith("/" + draft.Reference, StringComparison.Ordinal));
 
     private Card Build(
         DecisionContext context,
@@ -117,14 +111,14 @@ public sealed class DrugOrderWarningProducer : ICardProducer
             findings.Add($"The draft order{product} ({Markdown.Escape(draft.Reference)}) contains **{DrugText.Name(match)}**, {DrugText.HowMatched(match)}; group {DrugText.GroupAndTier(match.Set)}.");
         }
 
-        findings.Add(ReasonLine(reason, thresholds, options, used));
+        findings.Add(ReasonLine(reason, thresholds, options, used, context.Display));
 
         var relowering = string.Equals(main.Set.Id, DesmopressinSetId, StringComparison.Ordinal)
             ? Allowance.For(context)?.Overcorrected
             : null;
         if (relowering is not null)
         {
-            findings.Add(RateCautionOrderCardProducer.ReloweringText(relowering));
+            findings.Add(RateCautionOrderCardProducer.ReloweringText(relowering, context.Display));
         }
 
         var sameDrug = existing.Where(e => matches.Any(m => m.Set.Id == e.Match.Set.Id
@@ -148,7 +142,7 @@ public sealed class DrugOrderWarningProducer : ICardProducer
             findings.Add($"**Medicines acting together**: {DrugText.Name(main)} with {names}; their effects on sodium add up (common practice).");
         }
 
-        var recheck = Invariant.Format($"within {Duration(recheckHours)}");
+        var recheck = Invariant.Format($"within {ClinicalDuration.Hours(recheckHours)}");
         var heartFailure = HeartFailureTreatment.HeartFailure(context);
         var treatment = HeartFailureTreatment.IsTreatment(main, heartFailure);
         if (treatment)
@@ -171,7 +165,7 @@ public sealed class DrugOrderWarningProducer : ICardProducer
             };
 
         var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**A medicine that can lower sodium is being ordered**, as of {Invariant.Time(context.Request.Now)}. Advisory only."))
+            .Paragraph(Invariant.Format($"**A medicine that can lower sodium is being ordered**, as of {context.Display.Time(context.Request.Now)}. Advisory only."))
             .Bullets("Findings", findings)
             .Bullets("What clinicians usually consider", consider);
         CardFooter.Write(detail, context, [
@@ -196,7 +190,7 @@ public sealed class DrugOrderWarningProducer : ICardProducer
 
         return new Card
         {
-            Summary = Summary.Fit(SummaryText(main, reason, band, thresholds, options)),
+            Summary = Summary.Fit(SummaryText(main, reason, band, thresholds, options, context.Display)),
             // A stale sodium calls for a recheck first, and a deliberate re-lowering is a senior decision: at most a warning.
             Indicator = profound && relowering is null && !context.Sodium.LatestIsStale ? CardIndicator.Critical : CardIndicator.Warning,
             Detail = detail.ToString(),
@@ -205,24 +199,23 @@ public sealed class DrugOrderWarningProducer : ICardProducer
             ResourcesUsed = [.. used],
             Suggestions = suggestions,
             SelectionBehavior = SelectionBehavior.AtMostOne,
-            OverrideReasons = context.Knowledge.CodeSystems.GetValueOrDefault(OverrideReasonSystemId) ?? [],
         };
     }
 
-    private static string SummaryText(MedicationMatch main, OrderWarningReason reason, SeverityBand? band, SeverityThresholds thresholds, DrugCauseOptions options)
+    private static string SummaryText(MedicationMatch main, OrderWarningReason reason, SeverityBand? band, SeverityThresholds thresholds, DrugCauseOptions options, TimeDisplay display)
     {
         var what = $"{DrugText.PlainNameWithGroup(main)} can lower sodium";
         return reason.Trigger switch
         {
             OrderWarningTrigger.Low => Invariant.Format(
-                $"{what}; sodium is already {Invariant.Number(reason.Latest!.Value)} mmol/L ({thresholds.NameOf(band!.Value)}, {Invariant.ShortTime(reason.Latest.EffectiveAt)})."),
+                $"{what}; sodium is already {Invariant.Number(reason.Latest!.Value)} mmol/L ({thresholds.NameOf(band!.Value)}, {display.AgeAndTime(reason.Latest.EffectiveAt)})."),
             OrderWarningTrigger.Falling => Invariant.Format(
                 $"{what}; sodium is falling: {Invariant.Number(reason.Latest!.Value)} mmol/L, down from {Invariant.Number(reason.Higher!.Value)}."),
             _ => Invariant.Format($"{what}; no sodium in the last {Invariant.Number(options.RecentSodiumDays)} days for a patient aged {reason.AgeYears}."),
         };
     }
 
-    private static string ReasonLine(OrderWarningReason reason, SeverityThresholds thresholds, DrugCauseOptions options, SortedSet<string> used)
+    private static string ReasonLine(OrderWarningReason reason, SeverityThresholds thresholds, DrugCauseOptions options, SortedSet<string> used, TimeDisplay display)
     {
         switch (reason.Trigger)
         {
@@ -231,26 +224,21 @@ public sealed class DrugOrderWarningProducer : ICardProducer
                 used.Add(latest.Reference);
                 var band = thresholds.Classify(latest.Value);
                 return Invariant.Format(
-                    $"**Sodium is already low**: {Cite.Result(latest)}, {thresholds.NameOf(band)} hyponatremia ({thresholds.RangeOf(band)}; {thresholds.Source}); this medicine can lower it further.");
+                    $"**Sodium is already low**: {Cite.Result(latest, display)}, {thresholds.NameOf(band)} hyponatremia ({thresholds.RangeOf(band)}; {thresholds.Source}); this medicine can lower it further.");
             case OrderWarningTrigger.Falling:
                 used.Add(reason.Latest!.Reference);
                 used.Add(reason.Higher!.Reference);
                 return Invariant.Format(
-                    $"**Sodium is falling**: {Cite.Result(reason.Latest)}, down {Invariant.Number(reason.Higher.Value - reason.Latest.Value)} mmol/L from {Cite.Result(reason.Higher)} (a drop of at least {Invariant.Number(options.MeaningfulDropMmolPerL)} mmol/L within {Duration(options.FallingWindowHours)} counts as falling).");
+                    $"**Sodium is falling**: {Cite.Result(reason.Latest, display)}, down {Invariant.Number(reason.Higher.Value - reason.Latest.Value)} mmol/L from {Cite.Result(reason.Higher, display)} (a drop of at least {Invariant.Number(options.MeaningfulDropMmolPerL)} mmol/L within {ClinicalDuration.Hours(options.FallingWindowHours)} counts as falling).");
             default:
                 if (reason.Latest is { } old)
                 {
                     used.Add(old.Reference);
                 }
 
-                var last = reason.Latest is { } l ? "the last usable one is " + Cite.Result(l) : "none is on record";
+                var last = reason.Latest is { } l ? "the last usable one is " + Cite.Result(l, display) : "none is on record";
                 return Invariant.Format(
                     $"**No recent sodium**: no usable sodium in the last {Invariant.Number(options.RecentSodiumDays)} days ({last}), and the patient is {reason.AgeYears} years old (age {options.AbsentSodiumMinimumAgeYears} or over: a higher risk of low sodium from medicines, common practice).");
         }
     }
-
-    private static string Duration(double hours)
-        => hours >= 48 && hours % 24 == 0
-            ? Invariant.Format($"{Invariant.Number(hours / 24)} days")
-            : Invariant.Format($"{Invariant.Number(hours)} h");
 }

@@ -18,8 +18,9 @@ namespace CdsNatremia.Core.Drugs;
 public static class DrugTiming
 {
     /// <summary>The verdict and its evidence.</summary>
-    public static TimingEvidence Assess(MedicationFact medication, SodiumFall? fall)
+    public static TimingEvidence Assess(MedicationFact medication, SodiumFall? fall, TimeDisplay? display = null)
     {
+        display ??= TimeDisplay.Utc(default);
         Guard.NotNull(medication, nameof(medication));
         if (medication.Use == MedicationUse.Intended)
         {
@@ -40,24 +41,24 @@ public static class DrugTiming
         if (start >= fall.FirstLow.EffectiveAt)
         {
             return new TimingEvidence(TimingVerdict.Unlikely, Invariant.Format(
-                $"{started}, on or after {Value(fall.FirstLow)}, when sodium was already near its lowest: unlikely to have started the fall, though it can keep sodium low"));
+                $"{started}, on or after {Value(fall.FirstLow, display)}, when sodium was already near its lowest: unlikely to have started the fall, though it can keep sodium low"));
         }
 
         if (fall.Before is not { } before)
         {
             return new TimingEvidence(TimingVerdict.Possible, Invariant.Format(
-                $"{started}, before the first low result ({Value(fall.FirstLow)}); no earlier higher sodium is on record, so when the fall began is unknown"));
+                $"{started}, before the first low result ({Value(fall.FirstLow, display)}); no earlier higher sodium is on record, so when the fall began is unknown"));
         }
 
         return start > before.EffectiveAt
             ? new TimingEvidence(TimingVerdict.Likely, Invariant.Format(
-                $"{started}, after {Value(before)} and before {Value(fall.FirstLow)}: it began before the fall"))
+                $"{started}, after {Value(before, display)} and before {Value(fall.FirstLow, display)}: it began before the fall"))
             : new TimingEvidence(TimingVerdict.Likely, Invariant.Format(
-                $"{started}, so already taken when sodium was {Value(before)}; sodium fell afterwards to {Value(fall.FirstLow)}"));
+                $"{started}, so already taken when sodium was {Value(before, display)}; sodium fell afterwards to {Value(fall.FirstLow, display)}"));
     }
 
     private static string Day(DateTimeOffset at) => at.ToUniversalTime().ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture);
 
-    private static string Value(LabResult result)
-        => Invariant.Format($"{Invariant.Number(result.Value)} mmol/L at {Invariant.Time(result.EffectiveAt)} ({Markdown.Escape(result.Reference)})");
+    private static string Value(LabResult result, TimeDisplay display)
+        => Invariant.Format($"{Invariant.Number(result.Value)} mmol/L at {display.Time(result.EffectiveAt)} ({Markdown.Escape(result.Reference)})");
 }

@@ -27,14 +27,14 @@ public static class RecentlyStopped
     public static bool IsDated(MedicationFact medication) => Guard.NotNull(medication, nameof(medication)).EndedAt is not null || medication.LastRecordedAt is not null;
 
     /// <summary>"stopped 2026-03-06 (MedicationStatement/x)", "stopped on or before 2026-03-06 …", "stop date not recorded …" (Markdown-escaped).</summary>
-    public static string When(MedicationFact medication)
+    public static string When(MedicationFact medication, TimeDisplay display)
     {
         Guard.NotNull(medication, nameof(medication));
         var reference = Markdown.Escape(medication.Reference);
         return medication.EndedAt is { } end
-            ? Invariant.Format($"stopped {Invariant.Time(end)} ({reference})")
+            ? Invariant.Format($"stopped {display.Time(end)} ({reference})")
             : medication.LastRecordedAt is { } recorded
-                ? Invariant.Format($"stopped on or before {Invariant.Time(recorded)} ({reference})")
+                ? Invariant.Format($"stopped on or before {display.Time(recorded)} ({reference})")
                 : $"stop date not recorded ({reference})";
     }
 }

@@ -42,7 +42,7 @@ public sealed class RecentlyStoppedDrugRule : IAssessmentRule
             card.ResourcesUsed.Add(medication.Reference);
             var name = DrugText.Name(match);
             card.Steps.Add(Invariant.Format(
-                $"**Recently stopped medicine**: {name} ({Markdown.Escape(match.Set.Label)}), {RecentlyStopped.When(medication)}, within the {days}-day look-back (from memory: a drug's effect on sodium can outlast the last dose): a **possible contributor**, not a likely one now that it has stopped."));
+                $"**Recently stopped medicine**: {name} ({Markdown.Escape(match.Set.Label)}), {RecentlyStopped.When(medication, context.Display)}, within the {days}-day look-back (from memory: a drug's effect on sodium can outlast the last dose): a **possible contributor**, not a likely one now that it has stopped."));
             card.Differential.Add(Invariant.Format($"Medicine effect: {name} ({Markdown.Escape(match.Set.Label)}), **recently stopped**: a possible contributor."));
         }
     }

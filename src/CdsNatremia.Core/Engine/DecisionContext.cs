@@ -1,5 +1,6 @@
 using CdsNatremia.Core.Knowledge;
 using CdsNatremia.Core.Sodium;
+using CdsNatremia.Core.Text;
 
 namespace CdsNatremia.Core.Engine;
 
@@ -7,14 +8,18 @@ namespace CdsNatremia.Core.Engine;
 public sealed class DecisionContext
 {
     /// <summary>Creates the context; the sodium series and thresholds are computed here, once.</summary>
-    public DecisionContext(DecisionRequest request, RuleOptions options, KnowledgeBase knowledge)
+    public DecisionContext(DecisionRequest request, RuleOptions options, KnowledgeBase knowledge, TimeZoneInfo? displayZone = null)
     {
         Request = Guard.NotNull(request, nameof(request));
         Options = Guard.NotNull(options, nameof(options));
         Knowledge = Guard.NotNull(knowledge, nameof(knowledge));
         Sodium = SodiumSeries.From(request.Facts, request.Now, options.Reading);
         Thresholds = options.Severity.Resolve();
+        Display = new TimeDisplay(displayZone ?? TimeZoneInfo.Utc, request.Now);
     }
+
+    /// <summary>How times are shown on this request's cards (display zone, ages from the request's Now).</summary>
+    public TimeDisplay Display { get; }
 
     /// <summary>The request.</summary>
     public DecisionRequest Request { get; }

@@ -14,10 +14,12 @@ public sealed class DecisionEngine
     private readonly IReadOnlyList<ICardProducer> _producers;
     private readonly RuleOptions _options;
     private readonly KnowledgeBase _knowledge;
+    private readonly TimeZoneInfo _displayZone;
 
-    /// <summary>Creates the engine.</summary>
-    public DecisionEngine(IEnumerable<ICardProducer> producers, RuleOptions options, KnowledgeBase knowledge)
+    /// <summary>Creates the engine; <paramref name="displayZone"/> is the zone cards print times in (default UTC).</summary>
+    public DecisionEngine(IEnumerable<ICardProducer> producers, RuleOptions options, KnowledgeBase knowledge, TimeZoneInfo? displayZone = null)
     {
+        _displayZone = displayZone ?? TimeZoneInfo.Utc;
         _producers = Guard.NotNull(producers, nameof(producers)).ToArray();
         _options = Guard.NotNull(options, nameof(options));
         _knowledge = Guard.NotNull(knowledge, nameof(knowledge));
@@ -29,7 +31,7 @@ public sealed class DecisionEngine
     /// <summary>Decides which cards to show.</summary>
     public IReadOnlyList<Card> Decide(DecisionRequest request)
     {
-        var context = new DecisionContext(request, _options, _knowledge);
+        var context = new DecisionContext(request, _options, _knowledge, _displayZone);
         return _producers
             .Where(p => p.Handles(request.Hook))
             .SelectMany(p => p.Produce(context))
@@ -37,9 +39,23 @@ public sealed class DecisionEngine
             .OrderByDescending(x => x.card.Indicator)
             .ThenBy(x => WorkupLast(x.card))
             .ThenBy(x => x.index)
-            .Select(x => x.card)
+            .Select(x => Finish(x.card, context))
             .ToList();
     }
+
+    /// <summary>
+    /// The steps every card passes through once: suggestions ordered and capped (<see cref="SuggestionPolicy"/>) and the
+    /// override reasons of its kind (<see cref="OverrideReasonChoice"/>) and the findings fingerprint (<see cref="FindingsFingerprint"/>).
+    /// </summary>
+    private Card Finish(Card card, DecisionContext context)
+        => SuggestionPolicy.Apply(card, context.Request.Hook) with
+        {
+            OverrideReasons = OverrideReasonChoice.For(card.Topic, _knowledge),
+            Fingerprint = FindingsFingerprint.Of(card, context),
+        };
+
+    /// <summary>How this engine shows times for a request at <paramref name="now"/> (its display zone).</summary>
+    public Text.TimeDisplay DisplayAt(DateTimeOffset now) => new(_displayZone, now);
 
     /// <summary>0 for a safety card, 1 for the work-up (sodium assessment) card.</summary>
     private static int WorkupLast(Card card) => string.Equals(card.Topic, "sodium-assessment", StringComparison.Ordinal) ? 1 : 0;

@@ -102,14 +102,14 @@ public sealed record DiureticExposure(MedicationFact Medication, MedicationMatch
     public bool InUseAt(DateTimeOffset at) => Medication.Use == MedicationUse.Active && (Medication.StartedAt is not { } start || start <= at);
 
     /// <summary>"metolazone (thiazide or thiazide-like diuretic, MedicationStatement/s07-mtz, since 2026-02-24 00:00 UTC)".</summary>
-    public string Describe()
+    public string Describe(TimeDisplay display)
     {
         if (Medication.Use == MedicationUse.Stopped)
         {
-            return $"{Markdown.Escape(Match.Ingredient)} ({Markdown.Escape(Match.Set.Label)}, recently stopped: {RecentlyStopped.When(Medication)})";
+            return $"{Markdown.Escape(Match.Ingredient)} ({Markdown.Escape(Match.Set.Label)}, recently stopped: {RecentlyStopped.When(Medication, display)})";
         }
 
-        var since = Medication.StartedAt is { } start ? "since " + Invariant.Time(start) : "start time not recorded";
+        var since = Medication.StartedAt is { } start ? "since " + display.Time(start) : "start time not recorded";
         var use = Medication.Use == MedicationUse.Intended ? "intended, " : string.Empty;
         return $"{Markdown.Escape(Match.Ingredient)} ({Markdown.Escape(Match.Set.Label)}, {use}{Markdown.Escape(Medication.Reference)}, {since})";
     }

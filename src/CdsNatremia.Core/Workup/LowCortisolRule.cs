@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
@@ -46,9 +47,9 @@ public sealed class LowCortisolRule : IAssessmentRule
         card.ResourcesUsed.Add(cortisol.Reference);
         card.Sources.Add(WorkupSources.European2014);
         card.Findings.Add(Invariant.Format(
-            $"**Low cortisol** ({Cite.Result(cortisol)}, below {basis} of {Invariant.Number(low)} nmol/L): **adrenal insufficiency must be considered urgently**; it is a cause of low sodium in its own right and can be life-threatening."));
+            $"**Low cortisol** ({Cite.Result(cortisol, context.Display)}, below {basis} of {Invariant.Number(low)} nmol/L): **adrenal insufficiency must be considered urgently**; it is a cause of low sodium in its own right and can be life-threatening."));
         card.Steps.Add(Invariant.Format(
-            $"**Cortisol**: {Cite.Result(cortisol)} is below {Invariant.Number(low)} nmol/L ({basis}): glucocorticoid deficiency gives an SIADH-like picture and must be treated as possible adrenal insufficiency until shown otherwise (common practice)."));
+            $"**Cortisol**: {Cite.Result(cortisol, context.Display)} is below {Invariant.Number(low)} nmol/L ({basis}): glucocorticoid deficiency gives an SIADH-like picture and must be treated as possible adrenal insufficiency until shown otherwise (common practice)."));
         card.Differential.Add("Adrenal insufficiency (glucocorticoid deficiency; with mineralocorticoid deficiency too in primary adrenal failure).");
         card.NextSteps.Add("Assess urgently for adrenal insufficiency (blood pressure, volume status, symptoms) and seek senior or endocrine advice at once, under local protocol.");
         card.NextSteps.Add("Replacing the glucocorticoid restores the kidney's free-water excretion and **can raise sodium quickly**: check sodium often once it is started and keep within the correction limits (from memory).");

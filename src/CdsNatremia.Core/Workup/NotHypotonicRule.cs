@@ -33,7 +33,7 @@ public sealed class NotHypotonicRule : IAssessmentRule
         if (t.GlucoseIsHigh)
         {
             spoke = true;
-            GlucoseCorrection(t, options, card);
+            GlucoseCorrection(t, options, card, context.Display);
         }
 
         if (t.Band == Tonicity.Isotonic && t.Method == OsmolalityMethod.Measured)
@@ -63,7 +63,7 @@ public sealed class NotHypotonicRule : IAssessmentRule
         }
     }
 
-    private static void GlucoseCorrection(TonicityAssessment t, WorkupOptions options, AssessmentBuilder card)
+    private static void GlucoseCorrection(TonicityAssessment t, WorkupOptions options, AssessmentBuilder card, TimeDisplay display)
     {
         var mgPerDl = t.GlucoseMgPerDl!.Value;
         var na = t.Sodium.Value;
@@ -80,7 +80,7 @@ public sealed class NotHypotonicRule : IAssessmentRule
                 $" Above {Invariant.Number(OsmolalityFormulas.HillierSteepAboveMgPerDl)} mg/dL Hillier et al. found the fall steeper (about {Invariant.Number(OsmolalityFormulas.HillierSteepPer100MgPerDl)} mmol/L per 100 mg/dL); applied to the glucose above {Invariant.Number(OsmolalityFormulas.HillierSteepAboveMgPerDl)} mg/dL it gives {Invariant.Number(Math.Round(OsmolalityFormulas.HillierSteepCorrectedSodium(na, mgPerDl), 1))} mmol/L, so the true value may be higher still.")
             : string.Empty;
         card.Steps.Add(Invariant.Format(
-            $"**Glucose-corrected sodium**: {Cite.Result(t.Glucose)} = {Invariant.Number(mgPerDl)} mg/dL. Katz (1.6 mmol/L per 100 mg/dL above 100): {Invariant.Number(na)} + 1.6 × ({Invariant.Number(mgPerDl)} − 100)/100 = **{Invariant.Number(katz)} mmol/L**. Hillier (2.4 per 100 mg/dL above 100): **{Invariant.Number(hillier)} mmol/L**.{steep} This service uses {chosenName} (configured)."));
+            $"**Glucose-corrected sodium**: {Cite.Result(t.Glucose, display)} = {Invariant.Number(mgPerDl)} mg/dL. Katz (1.6 mmol/L per 100 mg/dL above 100): {Invariant.Number(na)} + 1.6 × ({Invariant.Number(mgPerDl)} − 100)/100 = **{Invariant.Number(katz)} mmol/L**. Hillier (2.4 per 100 mg/dL above 100): **{Invariant.Number(hillier)} mmol/L**.{steep} This service uses {chosenName} (configured)."));
         card.Findings.Add(Invariant.Format($"Glucose {Invariant.Number(t.Glucose.Value)} mmol/L ({Invariant.Number(mgPerDl)} mg/dL): glucose-corrected sodium {Invariant.Number(katz)} (Katz) to {Invariant.Number(hillier)} mmol/L (Hillier)."));
 
         if (t.Band == Tonicity.Hypertonic)
@@ -113,7 +113,7 @@ public sealed class NotHypotonicRule : IAssessmentRule
         {
             card.ResourcesUsed.Add(triglyceride.Reference);
             var high = triglyceride.Value >= options.HighTriglycerideFrom;
-            checks.Add(Invariant.Format($"{Cite.Result(triglyceride)}: {(high ? "**very high**" : "not high enough to explain it")} (threshold {Invariant.Number(options.HighTriglycerideFrom)} mmol/L, about 1000 mg/dL: from memory)"));
+            checks.Add(Invariant.Format($"{Cite.Result(triglyceride, context.Display)}: {(high ? "**very high**" : "not high enough to explain it")} (threshold {Invariant.Number(options.HighTriglycerideFrom)} mmol/L, about 1000 mg/dL: from memory)"));
             if (high)
             {
                 clues.Add("very high triglycerides");
@@ -128,7 +128,7 @@ public sealed class NotHypotonicRule : IAssessmentRule
         {
             card.ResourcesUsed.Add(protein.Reference);
             var high = protein.Value >= options.HighTotalProteinFrom;
-            checks.Add(Invariant.Format($"{Cite.Result(protein)}: {(high ? "**very high**" : "not high enough to explain it")} (threshold {Invariant.Number(options.HighTotalProteinFrom)} g/L: from memory)"));
+            checks.Add(Invariant.Format($"{Cite.Result(protein, context.Display)}: {(high ? "**very high**" : "not high enough to explain it")} (threshold {Invariant.Number(options.HighTotalProteinFrom)} g/L: from memory)"));
             if (high)
             {
                 clues.Add("very high total protein");
@@ -154,7 +154,7 @@ public sealed class NotHypotonicRule : IAssessmentRule
             card.ResourcesUsed.Add(direct.Reference);
             var normal = direct.Value >= context.Thresholds.NormalFrom;
             card.Steps.Add(Invariant.Format(
-                $"**Direct sodium**: {Cite.Result(direct)} is a whole-blood (direct ion-selective electrode) value: {(normal ? "it is **normal**, which supports an artefact" : "it is also low, so the low sodium is **real** and an artefact is unlikely; look for another effective osmole")}."));
+                $"**Direct sodium**: {Cite.Result(direct, context.Display)} is a whole-blood (direct ion-selective electrode) value: {(normal ? "it is **normal**, which supports an artefact" : "it is also low, so the low sodium is **real** and an artefact is unlikely; look for another effective osmole")}."));
             if (!normal)
             {
                 card.OfferSummaryAction(SummaryPriority, "normal osmolality but low direct sodium: look for other osmoles");
@@ -174,7 +174,7 @@ public sealed class NotHypotonicRule : IAssessmentRule
     {
         var glucose = t.Glucose is null
             ? "glucose is not available, so hyperglycaemia is not excluded"
-            : Invariant.Format($"glucose is not high ({Cite.Result(t.Glucose)})");
+            : Invariant.Format($"glucose is not high ({Cite.Result(t.Glucose, context.Display)})");
         var agents = OsmoleAgents.InRecord(context.Request.Facts);
         foreach (var (medication, _) in agents)
         {

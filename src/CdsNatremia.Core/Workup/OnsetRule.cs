@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
@@ -59,7 +60,7 @@ public sealed class OnsetRule : IAssessmentRule
         if (acute)
         {
             card.Steps.Add(Invariant.Format(
-                $"**Onset**: the last normal sodium, {Cite.Result(lastNormal!)}, was {WorkupData.Duration(hours!.Value)} before the low value: a fall documented within {Invariant.Number(window)} h, so **acute** hyponatremia (2014 European guideline)."));
+                $"**Onset**: the last normal sodium, {Cite.Result(lastNormal!, context.Display)}, was {WorkupData.Duration(hours!.Value)} before the low value: a fall documented within {Invariant.Number(window)} h, so **acute** hyponatremia (2014 European guideline)."));
             card.Findings.Add(Invariant.Format($"**Acute** onset: normal sodium {Invariant.Number(lastNormal!.Value)} mmol/L {WorkupData.Duration(hours.Value)} earlier."));
             card.NextSteps.Add("Acute hyponatremia carries a higher risk of brain oedema: assess symptoms now and look for a recent cause (hypotonic intravenous fluids, surgery, drugs, excessive drinking, exercise).");
             card.Raise(context.Options.Workup.AcuteIndicator);
@@ -70,8 +71,8 @@ public sealed class OnsetRule : IAssessmentRule
         var why = lastNormal is null
             ? "no normal sodium is on record before it"
             : hours < window
-                ? Invariant.Format($"the last normal sodium, {Cite.Result(lastNormal)}, was {WorkupData.Duration(hours!.Value)} before the low value, but {WorkupData.Duration((context.Request.Now - lastNormal.EffectiveAt).TotalHours)} before this assessment, so the low sodium may have lasted {Invariant.Number(window)} h or more")
-                : Invariant.Format($"the last normal sodium, {Cite.Result(lastNormal)}, was {WorkupData.Duration(hours!.Value)} before the low value, not within {Invariant.Number(window)} h");
+                ? Invariant.Format($"the last normal sodium, {Cite.Result(lastNormal, context.Display)}, was {WorkupData.Duration(hours!.Value)} before the low value, but {WorkupData.Duration((context.Request.Now - lastNormal.EffectiveAt).TotalHours)} before this assessment, so the low sodium may have lasted {Invariant.Number(window)} h or more")
+                : Invariant.Format($"the last normal sodium, {Cite.Result(lastNormal, context.Display)}, was {WorkupData.Duration(hours!.Value)} before the low value, not within {Invariant.Number(window)} h");
         card.Steps.Add(Invariant.Format(
             $"**Onset**: {why}: **chronic or of unknown duration**, which the 2014 European guideline treats as chronic (correction limits apply)."));
     }

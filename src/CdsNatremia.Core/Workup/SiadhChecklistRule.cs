@@ -64,7 +64,7 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         var hypo = Invariant.Format($"Effective serum osmolality < {Invariant.Number(options.HypotonicBelow)} mOsm/kg");
         list.Add(tonicity.Effective is { } effective
             ? new SiadhCriterion(hypo, effective < options.HypotonicBelow ? CriterionStatus.Met : CriterionStatus.NotMet,
-                Invariant.Format($"{Invariant.Number(effective)} mOsm/kg ({(tonicity.Method == OsmolalityMethod.Measured ? "from " + Cite.Result(tonicity.Measured!) : "calculated")})"))
+                Invariant.Format($"{Invariant.Number(effective)} mOsm/kg ({(tonicity.Method == OsmolalityMethod.Measured ? "from " + Cite.Result(tonicity.Measured!, context.Display) : "calculated")})"))
             : context.Request.Facts.Observe(Analyte.SerumOsmolality).CouldNotBeReadText is { } unreadOsm
                 ? new SiadhCriterion(hypo, CriterionStatus.CouldNotBeRead, unreadOsm)
                 : new SiadhCriterion(hypo, CriterionStatus.Unknown, "no serum osmolality"));
@@ -72,12 +72,12 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         var uosmName = Invariant.Format($"Urine osmolality > {Invariant.Number(options.DiluteUrineAtOrBelow)} mOsm/kg");
         var urineFrom = context.Sodium.Latest is { } assessed ? assessed.EffectiveAt.AddHours(-options.UrineUsableBeforeSodiumHours) : (DateTimeOffset?)null;
         list.Add(urine.Osmolality is { } uosm
-            ? new SiadhCriterion(uosmName, uosm.Value > options.DiluteUrineAtOrBelow ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(uosm))
+            ? new SiadhCriterion(uosmName, uosm.Value > options.DiluteUrineAtOrBelow ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(uosm, context.Display))
             : Urine(context, uosmName, Analyte.UrineOsmolality, urineFrom, options.DiluteUrineAtOrBelow, "no urine osmolality"));
 
         var unaName = Invariant.Format($"Urine sodium > {Invariant.Number(options.LowUrineSodiumAtOrBelow)} mmol/L on normal salt and water intake");
         list.Add(urine.Sodium is { } una
-            ? new SiadhCriterion(unaName, una.Value > options.LowUrineSodiumAtOrBelow ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(una))
+            ? new SiadhCriterion(unaName, una.Value > options.LowUrineSodiumAtOrBelow ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(una, context.Display))
             : Urine(context, unaName, Analyte.UrineSodium, urineFrom, options.LowUrineSodiumAtOrBelow, "no urine sodium"));
 
         list.Add(new SiadhCriterion("Clinical euvolaemia", CriterionStatus.ClinicianToAssess, "the service cannot examine the patient (see the volume clues)"));
@@ -100,7 +100,7 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         var high = tsh.ReferenceHigh ?? options.ThyrotropinNormalTo;
         var range = Invariant.Format($"reference {Invariant.Number(low)}–{Invariant.Number(high)} mIU/L{(tsh.ReferenceHigh is null ? ", default range: from memory" : ", laboratory range")}");
         var normal = tsh.Value >= low && tsh.Value <= high;
-        return new SiadhCriterion(name, normal ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(tsh) + "; " + range);
+        return new SiadhCriterion(name, normal ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(tsh, context.Display) + "; " + range);
     }
 
     private static SiadhCriterion Adrenal(DecisionContext context, WorkupOptions options)
@@ -117,7 +117,7 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         var normal = cortisol.Value >= low;
         var caveat = normal ? "; a single value in range does not fully exclude adrenal insufficiency (timing matters; a stimulation test settles doubt)" : string.Empty;
         return new SiadhCriterion(name, normal ? CriterionStatus.Met : CriterionStatus.NotMet,
-            Invariant.Format($"{Cite.Result(cortisol)}; lower limit {Invariant.Number(low)} nmol/L ({source}){caveat}"));
+            Invariant.Format($"{Cite.Result(cortisol, context.Display)}; lower limit {Invariant.Number(low)} nmol/L ({source}){caveat}"));
     }
 
     private static SiadhCriterion Diuretics(DecisionContext context, UrineStudies urine)
@@ -127,8 +127,8 @@ public sealed class SiadhChecklistRule : IAssessmentRule
 
         // A negative criterion: met only when diuretics are absent after a real look; an unreadable medicine makes it unknown.
         return DiureticExposure.Observe(context).Match(
-            found => new SiadhCriterion(name, CriterionStatus.NotMet, string.Join("; ", found.Select(d => d.Describe()))),
-            found => new SiadhCriterion(name, CriterionStatus.NotMet, string.Join("; ", found.Select(d => d.Describe()))),
+            found => new SiadhCriterion(name, CriterionStatus.NotMet, string.Join("; ", found.Select(d => d.Describe(context.Display)))),
+            found => new SiadhCriterion(name, CriterionStatus.NotMet, string.Join("; ", found.Select(d => d.Describe(context.Display)))),
             unread => new SiadhCriterion(name, CriterionStatus.CouldNotBeRead, unread.CouldNotBeReadText!),
             looked => new SiadhCriterion(name, CriterionStatus.Met, Markdown.Escape(looked) + " (confirm with the patient)"));
     }
@@ -139,9 +139,9 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         var observed = context.Request.Facts.Observe(analyte, from);
         var status = observed.Judge(r => r.Value > threshold, r => Bounds.IsAbove(r, threshold));
         return observed.Match(
-            usable => new SiadhCriterion(name, status, Cite.Result(usable)),
+            usable => new SiadhCriterion(name, status, Cite.Result(usable, context.Display)),
             bound => new SiadhCriterion(name, status, Invariant.Format(
-                $"{AnalyteUnits.DisplayName(analyte)} {Bounds.Describe(bound)} {bound.Unit} at {Invariant.Time(bound.EffectiveAt)} ({Markdown.Escape(bound.Reference)}; a bound{(status == CriterionStatus.Unknown ? " that does not decide this criterion" : string.Empty)})")),
+                $"{AnalyteUnits.DisplayName(analyte)} {Bounds.Describe(bound)} {bound.Unit} at {context.Display.Time(bound.EffectiveAt)} ({Markdown.Escape(bound.Reference)}; a bound{(status == CriterionStatus.Unknown ? " that does not decide this criterion" : string.Empty)})")),
             unread => new SiadhCriterion(name, CriterionStatus.CouldNotBeRead, unread.CouldNotBeReadText!),
             _ => new SiadhCriterion(name, CriterionStatus.Unknown, absentText));
     }

@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
@@ -160,7 +161,7 @@ public sealed record TonicityAssessment
     };
 
     /// <summary>The result cited with unit, time and reference, or "not available".</summary>
-    public static string CiteOrMissing(LabResult? result, string what) => result is null ? what + " not available" : Cite.Result(result);
+    public static string CiteOrMissing(LabResult? result, string what, TimeDisplay display) => result is null ? what + " not available" : Cite.Result(result, display);
 
     /// <summary>A computed value as cards show it and rules use it: one decimal, half away from zero.</summary>
     private static double Shown(double value) => Math.Round(value, 1, MidpointRounding.AwayFromZero);

@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 
@@ -34,13 +35,13 @@ public sealed class TonicityRule : IAssessmentRule
         switch (t.Method)
         {
             case OsmolalityMethod.Measured:
-                card.Steps.Add(Invariant.Format($"**Tonicity** (measured osmolality, the preferred method): {Cite.Result(t.Measured!)}. {EffectiveText(t)} → **{name}** ({edges})."));
+                card.Steps.Add(Invariant.Format($"**Tonicity** (measured osmolality, the preferred method): {Cite.Result(t.Measured!, context.Display)}. {EffectiveText(t, context.Display)} → **{name}** ({edges})."));
                 card.Findings.Add(Invariant.Format($"Serum tonicity: **{name}** (measured osmolality {Invariant.Number(t.Measured!.Value)} mOsm/kg{EffectiveShort(t)})."));
                 break;
             case OsmolalityMethod.Calculated:
                 card.Sources.Add(WorkupSources.OsmolalityFormulas);
                 card.Steps.Add(Invariant.Format(
-                    $"**Tonicity** (calculated: no measured serum osmolality within {Invariant.Number(options.PairedWithinHours)} h of the sodium): {CalculatedText(t)} → **{name}** ({edges}). A calculated value rests on the measured sodium itself, so it cannot exclude a falsely low sodium (pseudohyponatremia) or unmeasured osmoles; a measured osmolality settles it."));
+                    $"**Tonicity** (calculated: no measured serum osmolality within {Invariant.Number(options.PairedWithinHours)} h of the sodium): {CalculatedText(t, context.Display)} → **{name}** ({edges}). A calculated value rests on the measured sodium itself, so it cannot exclude a falsely low sodium (pseudohyponatremia) or unmeasured osmoles; a measured osmolality settles it."));
                 card.Findings.Add(Invariant.Format($"Serum tonicity: **{name}** by calculation only (measured osmolality not available)."));
                 break;
             default:
@@ -71,27 +72,27 @@ public sealed class TonicityRule : IAssessmentRule
     }
 
     /// <summary>The calculated osmolality with its inputs, in the units the laboratory reported.</summary>
-    internal static string CalculatedText(TonicityAssessment t)
+    internal static string CalculatedText(TonicityAssessment t, TimeDisplay display)
     {
         var na = Invariant.Number(t.Sodium.Value);
         if (t.Calculated is not { } calculated)
         {
             return Invariant.Format(
-                $"effective osmolality 2 × {na} + glucose {Invariant.Number(t.Glucose!.Value)} = {Invariant.Number(t.CalculatedEffective!.Value)} mOsm/kg (urea not available; {Cite.Result(t.Glucose)})");
+                $"effective osmolality 2 × {na} + glucose {Invariant.Number(t.Glucose!.Value)} = {Invariant.Number(t.CalculatedEffective!.Value)} mOsm/kg (urea not available; {Cite.Result(t.Glucose, display)})");
         }
 
         if (t.ReportedInUsUnits)
         {
             // The terms shown are the exact molar-mass conversions, so this total is the SI total, digit for digit.
             return Invariant.Format(
-                $"{Invariant.Number(calculated)} mOsm/kg (US units as reported: 2 × {na} + glucose {Invariant.Number(t.Glucose!.OriginalValue!.Value)} mg/dL ÷ 18 + urea nitrogen {Invariant.Number(t.Urea!.OriginalValue!.Value)} mg/dL ÷ 2.8 = {Invariant.Number(2 * t.Sodium.Value)} + {Invariant.Number(t.Glucose.Value)} + {Invariant.Number(t.Urea.Value)}, with the exact divisors 18.016 and 2.8014; {Cite.Result(t.Glucose)}; {Cite.Result(t.Urea)})");
+                $"{Invariant.Number(calculated)} mOsm/kg (US units as reported: 2 × {na} + glucose {Invariant.Number(t.Glucose!.OriginalValue!.Value)} mg/dL ÷ 18 + urea nitrogen {Invariant.Number(t.Urea!.OriginalValue!.Value)} mg/dL ÷ 2.8 = {Invariant.Number(2 * t.Sodium.Value)} + {Invariant.Number(t.Glucose.Value)} + {Invariant.Number(t.Urea.Value)}, with the exact divisors 18.016 and 2.8014; {Cite.Result(t.Glucose, display)}; {Cite.Result(t.Urea, display)})");
         }
 
         return Invariant.Format(
-            $"{Invariant.Number(calculated)} mOsm/kg (SI units: 2 × {na} + glucose {Invariant.Number(t.Glucose!.Value)} + urea {Invariant.Number(t.Urea!.Value)} mmol/L; {Cite.Result(t.Glucose)}; {Cite.Result(t.Urea)})");
+            $"{Invariant.Number(calculated)} mOsm/kg (SI units: 2 × {na} + glucose {Invariant.Number(t.Glucose!.Value)} + urea {Invariant.Number(t.Urea!.Value)} mmol/L; {Cite.Result(t.Glucose, display)}; {Cite.Result(t.Urea, display)})");
     }
 
-    private static string EffectiveText(TonicityAssessment t)
+    private static string EffectiveText(TonicityAssessment t, TimeDisplay display)
     {
         if (t.Urea is null)
         {
@@ -99,7 +100,7 @@ public sealed class TonicityRule : IAssessmentRule
         }
 
         return Invariant.Format(
-            $"Effective osmolality, excluding urea (an ineffective osmole that crosses cell membranes: common practice): {Invariant.Number(t.Measured!.Value)} − urea {Invariant.Number(t.Urea.Value)} = {Invariant.Number(t.Effective!.Value)} mOsm/kg ({Cite.Result(t.Urea)})");
+            $"Effective osmolality, excluding urea (an ineffective osmole that crosses cell membranes: common practice): {Invariant.Number(t.Measured!.Value)} − urea {Invariant.Number(t.Urea.Value)} = {Invariant.Number(t.Effective!.Value)} mOsm/kg ({Cite.Result(t.Urea, display)})");
     }
 
     private static string EffectiveShort(TonicityAssessment t)

@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
@@ -48,7 +49,7 @@ public sealed record UrineStudies
     }
 
     /// <summary>The result cited with its labels (timing against the serum sodium, diuretic in use).</summary>
-    public string CiteWithLabels(LabResult urine, LabResult serumSodium, WorkupOptions options)
+    public string CiteWithLabels(LabResult urine, LabResult serumSodium, WorkupOptions options, TimeDisplay display)
     {
         Guard.NotNull(urine, nameof(urine));
         Guard.NotNull(serumSodium, nameof(serumSodium));
@@ -63,9 +64,9 @@ public sealed record UrineStudies
         var onDiuretic = Diuretics.Where(d => d.InUseAt(urine.EffectiveAt)).ToList();
         if (onDiuretic.Count > 0)
         {
-            labels.Add("**taken while a diuretic was in use**: " + string.Join("; ", onDiuretic.Select(d => d.Describe())));
+            labels.Add("**taken while a diuretic was in use**: " + string.Join("; ", onDiuretic.Select(d => d.Describe(display))));
         }
 
-        return labels.Count == 0 ? Cite.Result(urine) : Cite.Result(urine) + " [" + string.Join("; ", labels) + "]";
+        return labels.Count == 0 ? Cite.Result(urine, display) : Cite.Result(urine, display) + " [" + string.Join("; ", labels) + "]";
     }
 }

@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
@@ -43,7 +44,7 @@ public sealed class UrineStudiesRule : IAssessmentRule
                     ? Invariant.Format($" Urine sodium {Invariant.Number(una.Value)} mmol/L is reported but, with maximally dilute urine, it does not steer the reasoning.")
                     : string.Empty;
                 card.Steps.Add(Invariant.Format(
-                    $"**Urine osmolality**: {urine.CiteWithLabels(osm, serum, options)} is at or below {Invariant.Number(options.DiluteUrineAtOrBelow)} mOsm/kg: maximally dilute urine, so **relative excess water intake** (or low solute intake) (2014 European guideline).{naNote}"));
+                    $"**Urine osmolality**: {urine.CiteWithLabels(osm, serum, options, context.Display)} is at or below {Invariant.Number(options.DiluteUrineAtOrBelow)} mOsm/kg: maximally dilute urine, so **relative excess water intake** (or low solute intake) (2014 European guideline).{naNote}"));
                 card.Findings.Add(Invariant.Format($"Dilute urine (osmolality {Invariant.Number(osm.Value)} mOsm/kg): relative excess water or low solute intake."));
                 card.Differential.Add("Primary polydipsia or excess water intake; low solute intake (poor diet, \"tea and toast\", beer drinking).");
                 card.NextSteps.Add("Water restriction and a normal diet usually correct it; a brisk water diuresis can raise the sodium too fast, so recheck sodium often.");
@@ -51,7 +52,7 @@ public sealed class UrineStudiesRule : IAssessmentRule
             }
 
             card.Steps.Add(Invariant.Format(
-                $"**Urine osmolality**: {urine.CiteWithLabels(osm, serum, options)} is above {Invariant.Number(options.DiluteUrineAtOrBelow)} mOsm/kg: the kidneys are not excreting free water (vasopressin activity); urine sodium comes next."));
+                $"**Urine osmolality**: {urine.CiteWithLabels(osm, serum, options, context.Display)} is above {Invariant.Number(options.DiluteUrineAtOrBelow)} mOsm/kg: the kidneys are not excreting free water (vasopressin activity); urine sodium comes next."));
         }
         else
         {
@@ -66,7 +67,7 @@ public sealed class UrineStudiesRule : IAssessmentRule
         }
 
         card.ResourcesUsed.Add(una2.Reference);
-        var cited = urine.CiteWithLabels(una2, serum, options);
+        var cited = urine.CiteWithLabels(una2, serum, options, context.Display);
         var onDiuretic = urine.DiureticsAtUrineSodium.Count > 0;
         if (una2.Value <= options.LowUrineSodiumAtOrBelow)
         {

@@ -56,13 +56,13 @@ public sealed class VolumeCluesRule : IAssessmentRule
         foreach (var diuretic in DiureticExposure.Find(context))
         {
             card.ResourcesUsed.Add(diuretic.Medication.Reference);
-            clues.Add("diuretic in use: " + diuretic.Describe() + ": sodium and volume loss; urine sodium is hard to read");
+            clues.Add("diuretic in use: " + diuretic.Describe(context.Display) + ": sodium and volume loss; urine sodium is hard to read");
         }
 
         foreach (var stopped in DiureticExposure.FindRecentlyStopped(context))
         {
             card.ResourcesUsed.Add(stopped.Medication.Reference);
-            clues.Add("diuretic recently stopped: " + stopped.Describe() + ": recent sodium and volume loss is possible");
+            clues.Add("diuretic recently stopped: " + stopped.Describe(context.Display) + ": recent sodium and volume loss is possible");
         }
 
         // Set-aside data is not "no clue": a medicine that could not be read makes diuretic use unknown, named by its own text.

@@ -32,7 +32,7 @@ public static class OrderResourceFactory
                 StartElement = new FhirDateTime(now.ToUniversalTime().ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture)),
                 EndElement = new FhirDateTime(now.AddHours(hours).ToUniversalTime().ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture)),
             };
-            request.Note = [new Annotation { Text = string.Create(CultureInfo.InvariantCulture, $"Wanted within {hours:0.#} h.") }];
+            request.Note = [new Annotation { Text = "Wanted within " + CdsNatremia.Core.Text.ClinicalDuration.Hours(hours) + "." }];
         }
 
         return request;

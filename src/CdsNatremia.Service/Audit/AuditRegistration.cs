@@ -26,6 +26,7 @@ public static class AuditRegistration
         builder.Services.AddSingleton(new PatientPseudonymizer(key, previous));
         builder.Services.AddSingleton(_ => AuditStoreFactory.Create(options, contentRoot));
         builder.Services.AddSingleton<CardAudit>();
+        builder.Services.AddSingleton<RepeatSuppression>();
         builder.Services.AddHostedService<AuditStartup>();
         builder.Services.AddSingleton<AuditPurgeService>();
         builder.Services.AddHostedService(sp => sp.GetRequiredService<AuditPurgeService>());

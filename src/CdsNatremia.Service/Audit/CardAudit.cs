@@ -58,6 +58,7 @@ public sealed class CardAudit
                 .Where(r => !string.Equals(r, patientReference, StringComparison.Ordinal) && !string.Equals(r, patientId, StringComparison.Ordinal))
                 .ToList(),
             SuggestionUuids = card.SuggestionUuids,
+            FindingsFingerprint = string.IsNullOrEmpty(card.Card.Fingerprint) ? null : card.Card.Fingerprint,
             IssuedAt = now,
             TestTraffic = testTraffic,
         }).ToList();

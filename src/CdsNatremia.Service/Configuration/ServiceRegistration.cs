@@ -43,12 +43,15 @@ public static class ServiceRegistration
         // (a missing, unlisted or other-version file stops the start).
         var knowledge = KnowledgeLoader.Load(directory);
         knowledge = knowledge with { ManifestVersion = KnowledgeManifest.Verify(directory).Version };
+        // An unknown display time zone stops start-up here, naming the setting.
+        var displayZone = (builder.Configuration.GetSection(DisplayOptions.Section).Get<DisplayOptions>() ?? new DisplayOptions()).ResolveTimeZone();
         services.AddSingleton(knowledge);
         services.AddSingleton(new KnowledgeState { Current = knowledge });
         services.AddSingleton(sp => new DecisionEngine(
             CardProducers.Default(),
             sp.GetRequiredService<IOptions<RuleOptions>>().Value,
-            sp.GetRequiredService<LoadedKnowledge>().Base));
+            sp.GetRequiredService<LoadedKnowledge>().Base,
+            displayZone));
         builder.AddNatremiaAudit();
         return builder;
     }

@@ -25,6 +25,7 @@ internal static class HookEndpoints
         HookHandler handler,
         CardResponseWriter writer,
         CardAudit audit,
+        RepeatSuppression repeats,
         IOptions<NatremiaServiceOptions> options,
         IOptions<InputLimitsOptions> limits,
         CancellationToken cancellationToken)
@@ -49,7 +50,8 @@ internal static class HookEndpoints
                     return Problems.Of(StatusCodes.Status400BadRequest, "Invalid CDS Hooks request", invalid.Problems);
                 case HookOutcome.MissingData missing:
                     return Problems.Of(StatusCodes.Status412PreconditionFailed, "Required data not available", missing.Problems);
-                case HookOutcome.Cards cards:
+                case HookOutcome.Cards decided:
+                    var cards = decided with { Items = await repeats.ApplyAsync(service, decided.PatientId, decided.Now, decided.Items, cancellationToken).ConfigureAwait(false) };
                     var (body, issued) = writer.Write(cards.Items, cards.PatientId, cards.Now);
                     // The audit record is committed before the answer leaves: no answered card without its record (docs/audit.md).
                     if (!await AuditRecorded(audit, service, document.RootElement, cards, issued, TestTraffic.IsMarked(http), cancellationToken).ConfigureAwait(false))

@@ -32,8 +32,43 @@ public abstract class AuditStoreContract
     {
         await using var scope = await OpenAsync();
         await scope.Store.InitializeAsync(None);
+        // One row per migration step (each applied once), the last at the current version.
         Assert.Equal((long)AuditSchema.Migrations.Count, Convert.ToInt64(await scope.Store.QueryScalarAsync("SELECT COUNT(*) FROM schema_version", None), System.Globalization.CultureInfo.InvariantCulture));
         Assert.Equal((long)AuditSchema.CurrentVersion, Convert.ToInt64(await scope.Store.QueryScalarAsync("SELECT MAX(version) FROM schema_version", None), System.Globalization.CultureInfo.InvariantCulture));
+    }
+
+    [SkippableFact]
+    public async Task LastReviewedAsync_OverriddenCard_OutcomeTimeForTheSamePatientAndFingerprintOnly()
+    {
+        await using var scope = await OpenAsync();
+        var card = Some.Card() with { FindingsFingerprint = "fingerprint-1" };
+        var since = Some.Now.AddHours(-24);
+        await scope.Store.RecordIssuedAsync([card], None);
+        Assert.Null(await scope.Store.LastReviewedAsync(card.PatientPseudonym, "fingerprint-1", since, None)); // issued, not answered
+
+        var at = Some.Now.AddMinutes(5);
+        await scope.Store.RecordFeedbackAsync(card.ServiceId, [Some.Overridden(card, at: at)], at, None);
+
+        Assert.Equal(at, await scope.Store.LastReviewedAsync(card.PatientPseudonym, "fingerprint-1", since, None));
+        Assert.Null(await scope.Store.LastReviewedAsync(card.PatientPseudonym, "fingerprint-2", since, None)); // other findings
+        Assert.Null(await scope.Store.LastReviewedAsync(new string('0', 64), "fingerprint-1", since, None)); // other patient
+        Assert.Null(await scope.Store.LastReviewedAsync(card.PatientPseudonym, "fingerprint-1", at.AddMinutes(1), None)); // before the period
+    }
+
+    [SkippableFact]
+    public async Task LastReviewedAsync_AcceptedThenPurged_NullAfterThePurge()
+    {
+        await using var scope = await OpenAsync();
+        var card = Some.Card(issuedAt: Some.Now.AddDays(-800)) with { FindingsFingerprint = "fingerprint-a" };
+        await scope.Store.RecordIssuedAsync([card], None);
+        var at = card.IssuedAt.AddMinutes(2);
+        await scope.Store.RecordFeedbackAsync(card.ServiceId, [Some.Accepted(card, at)], at, None);
+        Assert.Equal(at, await scope.Store.LastReviewedAsync(card.PatientPseudonym, "fingerprint-a", at.AddDays(-1), None));
+
+        await scope.Store.PurgeAsync(Some.Now.AddDays(-730), None);
+
+        Assert.Null(await scope.Store.LastReviewedAsync(card.PatientPseudonym, "fingerprint-a", at.AddDays(-1), None));
+        Assert.Equal(0L, Convert.ToInt64(await scope.Store.QueryScalarAsync("SELECT COUNT(*) FROM card_fingerprint", None), System.Globalization.CultureInfo.InvariantCulture));
     }
 
     [SkippableFact]

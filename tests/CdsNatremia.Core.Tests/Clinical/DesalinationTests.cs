@@ -86,7 +86,7 @@ public class DesalinationTests
         // Ringer's lactate: sodium 130 (reference sheet), potassium 4 and osmolality 273 (from memory, InfusionOptions).
         var infusate = Infusate.Of(InfusateKind.RingersLactate, new InfusionOptions());
         var urine = new UrineVersusInfusate(Some.Lab(Analyte.UrineOsmolality, 280), Some.Lab(Analyte.UrineSodium, 100), Some.Lab(Analyte.UrinePotassium, 30));
-        var (mayFall, lines) = urine.Compare(infusate);
+        var (mayFall, lines) = urine.Compare(infusate, CdsNatremia.Core.Text.TimeDisplay.Utc(Some.Now));
         Assert.True(mayFall); // 280 > 273 and 130 > 134 is false: one is enough
         Assert.Contains(lines, l => l.Contains("the fluid's sodium + potassium of 134 mmol/L", StringComparison.Ordinal));
     }

@@ -97,11 +97,13 @@ public class VaptanAndDesmopressinOrderTests
     [Fact]
     public void Produce_DesmopressinSelectedByBareId_StillOneCard()
     {
-        // A selection given as the bare id "dd" (not "MedicationRequest/dd"): the prescribing warning does not take it as
-        // selected, so the rate-caution card must speak; never zero cards (issue 13: never silent).
+        // A selection given as the bare id "dd" (not "MedicationRequest/dd"): one rule (DraftOrders) decides which drafts
+        // an order hook speaks about, so the prescribing warning takes it as selected and speaks, and the rate-caution
+        // card stays quiet: one card, never zero (never silent), never two.
         var request = Some.Request(Some.Facts(Some.Sodium(126, 3)), HookKind.OrderSelect) with { DraftOrders = [Desmopressin], SelectedOrders = ["dd"] };
         var card = Assert.Single(Some.Engine(knowledge: SomeClinical.Knowledge).Decide(request));
-        Assert.Contains("lowers sodium", card.Summary, StringComparison.Ordinal);
+        Assert.Equal("drug-order-warning", card.Topic);
+        Assert.Contains("can lower sodium", card.Summary, StringComparison.Ordinal);
     }
 
     [Fact]

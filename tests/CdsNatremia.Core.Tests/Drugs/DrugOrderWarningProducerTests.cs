@@ -119,3 +119,43 @@ public class DrugOrderWarningProducerTests
         Assert.Empty(cards);
     }
 }
+
+/// <summary>One rule for which draft orders an order hook speaks about (DraftOrders), for every producer.</summary>
+public class DraftOrderSelectionTests
+{
+    private static readonly MedicationFact Citalopram = SomeDrugs.Draft("draft-citalopram", "citalopram 10 mg tablet", SomeDrugs.RxNorm("2556"));
+
+    [Theory]
+    [InlineData("draft-citalopram")]                   // bare id (CDS Hooks order-select examples use bare ids)
+    [InlineData("MedicationRequest/draft-citalopram")] // relative reference
+    [InlineData("https://ehr.example.org/fhir/MedicationRequest/draft-citalopram")] // absolute URL
+    public void OrderSelect_SelectionInEitherReferenceForm_DrugWarningAndDraftOrdersAgree(string selection)
+    {
+        var request = new DecisionRequest
+        {
+            Hook = HookKind.OrderSelect,
+            Facts = Some.Facts(Some.Sodium(129)),
+            Now = Some.Now,
+            DraftOrders = [Citalopram],
+            SelectedOrders = [selection],
+        };
+        Assert.True(CdsNatremia.Core.CorrectionRate.DraftOrders.IsConsidered(request, Citalopram));
+        var cards = Some.Engine(knowledge: SomeDrugs.Knowledge).Decide(request);
+        Assert.Contains(cards, c => c.Topic == "drug-order-warning"); // 129 mmol/L: moderate (2014 European guideline)
+    }
+
+    [Fact]
+    public void OrderSelect_OtherOrderSelected_NoDrugWarning()
+    {
+        var request = new DecisionRequest
+        {
+            Hook = HookKind.OrderSelect,
+            Facts = Some.Facts(Some.Sodium(129)),
+            Now = Some.Now,
+            DraftOrders = [Citalopram],
+            SelectedOrders = ["MedicationRequest/draft-other"],
+        };
+        Assert.False(CdsNatremia.Core.CorrectionRate.DraftOrders.IsConsidered(request, Citalopram));
+        Assert.DoesNotContain(Some.Engine(knowledge: SomeDrugs.Knowledge).Decide(request), c => c.Topic == "drug-order-warning");
+    }
+}

@@ -149,6 +149,8 @@ public sealed class AuditTrailTests
 
         public Task<FeedbackResult> RecordFeedbackAsync(string serviceId, IReadOnlyList<FeedbackEntry> entries, DateTimeOffset receivedAt, CancellationToken cancellationToken) => throw new UnavailableException();
 
+        public Task<DateTimeOffset?> LastReviewedAsync(string patientPseudonym, string fingerprint, DateTimeOffset since, CancellationToken cancellationToken) => throw new UnavailableException();
+
         public Task<IssuedCardRecord?> FindCardAsync(Guid cardUuid, CancellationToken cancellationToken) => throw new UnavailableException();
 
         public Task<IReadOnlyList<FeedbackEntry>> FindFeedbackAsync(Guid cardUuid, CancellationToken cancellationToken) => throw new UnavailableException();

@@ -86,8 +86,11 @@ public partial class WorkupScenarioTests(NatremiaFactory factory) : IClassFixtur
             Assert.Equal("ServiceRequest", (string?)resource["resourceType"]);
             Assert.Equal("draft", (string?)resource["status"]);
             Assert.Equal("http://loinc.org", (string?)resource["code"]!["coding"]![0]!["system"]);
-            Assert.True((bool?)byCode[code]["isRecommended"]);
+            // The two most useful recommended, the third offered (SuggestionPolicy: at most two recommended, three on a chart opening).
+            Assert.Equal(code != "2955-3", (bool?)byCode[code]["isRecommended"]);
         }
+
+        Assert.Equal(3, byCode.Count);
 
         Assert.False(byCode.ContainsKey("2345-7")); // glucose was sent with the sodium: not missing
     }
