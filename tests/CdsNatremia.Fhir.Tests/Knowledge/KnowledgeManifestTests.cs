@@ -24,7 +24,7 @@ public sealed class KnowledgeManifestTests : IDisposable
     {
         var manifest = KnowledgeManifest.Verify(Profiles.Directory());
 
-        Assert.Equal("1.0.0", manifest.Version);
+        Assert.Equal("1.1.0", manifest.Version);
         Assert.Contains(manifest.Files, f => f.Path == "valuesets/drug-snri.json" && f.Url == "https://cdsnatremia.example.org/fhir/ValueSet/drug-snri");
         Assert.Contains(manifest.Files, f => f.Path == "structuredefinitions/drug-group-tier.json" && f.ResourceType == "StructureDefinition");
     }

@@ -12,7 +12,7 @@ public sealed class KnowledgeManifestStartupTests(NatremiaFactory factory) : ICl
         using var ready = JsonDocument.Parse(await factory.CreateClient().GetStringAsync("/readyz"));
 
         Assert.Equal("ready", ready.RootElement.GetProperty("status").GetString());
-        Assert.Equal("1.0.0", ready.RootElement.GetProperty("knowledgeManifestVersion").GetString());
+        Assert.Equal("1.1.0", ready.RootElement.GetProperty("knowledgeManifestVersion").GetString());
     }
 
     [Fact]
