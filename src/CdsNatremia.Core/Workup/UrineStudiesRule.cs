@@ -2,7 +2,6 @@ using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
-using CdsNatremia.Core.Text;
 
 namespace CdsNatremia.Core.Workup;
 
