@@ -14,23 +14,6 @@ public class FactStateReadingTests
          "valueQuantity":{{{{comparator}}}"value":{{{value}}},"unit":"mmol/L","system":"http://unitsofmeasure.org","code":"mmol/L"}}
         """;
 
-    [Fact]
-    public void Read_UnparseableConditionOfAnotherPatient_NoteShowsNeitherItsIdNorItsValues()
-    {
-        // Whose a resource is cannot be told when it does not parse as FHIR R4 (here onsetDateTime holds a number), so
-        // the note that says it was not used must carry nothing of it: no id, no value.
-        const string condition = """
-            {"resourceType":"Condition","id":"cond-of-other-77","subject":{"reference":"Patient/other-77"},
-             "code":{"text":"secret-diagnosis-text"},"onsetDateTime":424242}
-            """;
-        var facts = Json.Read(Json.Bundle(Sodium("na-1", "final", "131", "2026-03-10T08:00:00Z"), condition));
-        var note = Assert.Single(facts.DataNotes, n => n.Contains("Condition", StringComparison.Ordinal));
-        Assert.DoesNotContain("other-77", note, StringComparison.Ordinal);
-        Assert.DoesNotContain("424242", note, StringComparison.Ordinal);
-        Assert.DoesNotContain("secret-diagnosis-text", note, StringComparison.Ordinal);
-        Assert.Contains("could not be read as FHIR R4", note, StringComparison.Ordinal);
-    }
-
     // FHIR R4 Quantity.comparator: "<" means the actual value is less than the stated value.
     [Theory]
     [InlineData("<", ValueComparator.LessThan)]
