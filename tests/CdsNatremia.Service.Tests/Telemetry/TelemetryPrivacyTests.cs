@@ -62,7 +62,7 @@ public sealed class TelemetryPrivacyTests : IDisposable
         var sodiumValues = new HashSet<string>(StringComparer.Ordinal) { SentinelSodium };
         foreach (var scenario in ScenarioLibrary.All)
         {
-            var (ids, names, values) = PatientData(scenario);
+            var (ids, names, values) = ScenarioPatientData.Of(scenario);
             forbidden.AddRange(ids);
             forbidden.AddRange(names);
             sodiumValues.UnionWith(values);
@@ -248,33 +248,6 @@ public sealed class TelemetryPrivacyTests : IDisposable
             ["access_token"] = SentinelFhirToken, ["token_type"] = "Bearer", ["expires_in"] = 300, ["scope"] = "patient/*.read", ["subject"] = "natremia",
         };
         return body.ToJsonString();
-    }
-
-    /// <summary>The patient's ids, names and sodium values in a scenario, read from its Bundle.</summary>
-    private static (List<string> Ids, List<string> Names, List<string> SodiumValues) PatientData(Scenario scenario)
-    {
-        var ids = new List<string> { scenario.PatientId };
-        var names = new List<string>();
-        var values = new List<string>();
-        foreach (var resource in JsonNode.Parse(scenario.BundleJson)!["entry"]!.AsArray().Select(e => e!["resource"]!))
-        {
-            if ((string?)resource["resourceType"] == "Patient")
-            {
-                foreach (var name in resource["name"]?.AsArray() ?? [])
-                {
-                    names.Add((string)name!["family"]!);
-                    names.AddRange(name["given"]?.AsArray().Select(g => (string)g!) ?? []);
-                }
-            }
-            else if ((string?)resource["resourceType"] == "Observation"
-                     && resource["code"]?["coding"]?.AsArray().Any(c => (string?)c!["code"] is "2951-2" or "2947-0") == true
-                     && resource["valueQuantity"]?["value"] is JsonValue value)
-            {
-                values.Add(value.ToJsonString());
-            }
-        }
-
-        return (ids, names, values);
     }
 
     public void Dispose()
