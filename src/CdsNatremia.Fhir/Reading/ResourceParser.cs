@@ -49,6 +49,14 @@ public sealed class ResourceParser
                 // Firely checks element types lazily: an id of the wrong JSON type only fails when read. Every caller
                 // reads the id, so read it here, where a failure refuses the resource instead of escaping later.
                 _ = resource.Id;
+                if (!ModelInfo.IsKnownResource(resource.TypeName))
+                {
+                    // The lenient parser keeps a resource of a type R4 does not define; no rule could read it, so it is
+                    // refused here and named as not used, never dropped in silence.
+                    problem = $"'{resource.TypeName}' is not a FHIR R4 resource type";
+                    return null;
+                }
+
                 problem = null;
                 return resource;
             }

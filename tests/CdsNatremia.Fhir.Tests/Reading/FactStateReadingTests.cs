@@ -14,6 +14,24 @@ public class FactStateReadingTests
          "valueQuantity":{{{{comparator}}}"value":{{{value}}},"unit":"mmol/L","system":"http://unitsofmeasure.org","code":"mmol/L"}}
         """;
 
+    [Fact]
+    public void Read_ResourceOfATypeR4DoesNotDefine_NamedAsNotUsedWithoutItsIdOrValues()
+    {
+        // FHIR R4 defines a fixed list of resource types; an entry of another type cannot be read, is never dropped in
+        // silence, and, since whose it is cannot be told, the note carries nothing of it: no id, no subject, no value.
+        const string entry = """
+            {"resourceType":"ConditionNote","id":"cond-of-other-77","subject":{"reference":"Patient/other-77"},
+             "code":{"text":"secret-diagnosis-text"},"valueInteger":424242}
+            """;
+        var facts = Json.Read(Json.Bundle(Sodium("na-1", "final", "131", "2026-03-10T08:00:00Z"), entry));
+        var note = Assert.Single(facts.DataNotes, n => n.Contains("ConditionNote", StringComparison.Ordinal));
+        Assert.Contains("could not be read as FHIR R4", note, StringComparison.Ordinal);
+        Assert.DoesNotContain("other-77", note, StringComparison.Ordinal);
+        Assert.DoesNotContain("424242", note, StringComparison.Ordinal);
+        Assert.DoesNotContain("secret-diagnosis-text", note, StringComparison.Ordinal);
+        Assert.Equal(131, Assert.Single(facts.Labs).Value); // the readable entry is still used
+    }
+
     // FHIR R4 Quantity.comparator: "<" means the actual value is less than the stated value.
     [Theory]
     [InlineData("<", ValueComparator.LessThan)]
