@@ -42,7 +42,7 @@ public sealed class SiadhChecklistRule : IAssessmentRule
             : unknown > 0
                 ? "SIADH is neither shown nor excluded: some criteria lack data"
                 : "the data are **consistent with SIADH** if the clinician finds the patient euvolaemic";
-        var lines = string.Join(" ", criteria.Select((c, i) => Invariant.Format($"({i + 1}) {c.Name}: **{c.StatusText}**: {c.Data}.")));
+        var lines = string.Join(" ", criteria.Select((c, i) => Invariant.Format($"({i + 1}) {c.Name}: **{c.StatusText}**: {c.DataText}.")));
         card.Steps.Add(Invariant.Format(
             $"**SIADH essential criteria**: {met} met, {notMet} not met, {unknown} unknown, euvolaemia for the clinician; {verdict}. {lines}"));
         if (notMet == 0 && unknown == 0)

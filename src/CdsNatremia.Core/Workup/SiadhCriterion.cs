@@ -15,4 +15,11 @@ public sealed record SiadhCriterion(string Name, CriterionStatus Status, string 
         CriterionStatus.CouldNotBeRead => "unknown (could not be read)",
         _ => "for the clinician to assess",
     };
+
+    /// <summary>The data as printed after the state: a criterion that could not be read does not say so twice.</summary>
+    public string DataText => Status == CriterionStatus.CouldNotBeRead && Data.StartsWith(CouldNotBeReadPrefix, StringComparison.Ordinal)
+        ? Data[CouldNotBeReadPrefix.Length..]
+        : Data;
+
+    private const string CouldNotBeReadPrefix = "could not be read: ";
 }

@@ -103,6 +103,9 @@ public class SetAsideInputsTests
         var card = WorkupTestData.Card(Some.Facts([.. labs]) with { Medications = [unreadable] });
         Assert.DoesNotContain("consistent with SIADH", card.Detail, StringComparison.Ordinal);
         Assert.Contains("diuretic use: **unknown** (could not be read", card.Detail, StringComparison.Ordinal);
+        // The SIADH line says once that the criterion could not be read, then names the item.
+        Assert.Contains("No recent diuretic use: **unknown (could not be read)**: MedicationStatement/combo", card.Detail, StringComparison.Ordinal);
+        Assert.DoesNotContain("could not be read)**: could not be read", card.Detail, StringComparison.Ordinal);
     }
 
     [Fact]
