@@ -1,26 +1,31 @@
 using CdsNatremia.Core.Cards;
+using CdsNatremia.Core.Findings;
 
 namespace CdsNatremia.Core.Assessment;
 
 /// <summary>
-/// Collects what the work-up rules say about one patient before it becomes the assessment card.
+/// Collects the findings the work-up rules reach about one patient before they become the assessment card's
+/// <see cref="CardContent"/>. Rules add findings (typed data), never sentences; the renderers word them.
 /// Not thread-safe: one builder per request.
 /// </summary>
 public sealed class AssessmentBuilder
 {
-    private readonly List<(int Priority, string Text)> _summaryActions = [];
+    private readonly List<(int Priority, Finding Action)> _summaryActions = [];
 
-    /// <summary>Key findings, shown first.</summary>
-    public List<string> Findings { get; } = [];
+    /// <summary>Key findings: the patient-specific reasons the short card chooses from (by weight).</summary>
+    public List<Finding> Findings { get; } = [];
 
-    /// <summary>Reasoning steps, numbered, each naming the data it used.</summary>
-    public List<string> Steps { get; } = [];
+    /// <summary>Reasoning steps, each naming the data it used (full report).</summary>
+    public List<Finding> Steps { get; } = [];
 
-    /// <summary>Possible causes to consider.</summary>
-    public List<string> Differential { get; } = [];
+    /// <summary>Possible causes to consider (full report).</summary>
+    public List<Finding> Differential { get; } = [];
 
-    /// <summary>What to do next (advice for the clinician, never an order).</summary>
-    public List<string> NextSteps { get; } = [];
+    /// <summary>What to do next (advice for the clinician, never an order); the card shows the most urgent.</summary>
+    public List<Finding> NextSteps { get; } = [];
+
+    /// <summary>Cautions that depend on this patient (high risk, acute, stale): all shown on the card.</summary>
+    public List<Finding> Cautions { get; } = [];
 
     /// <summary>Orderable suggestions (missing tests).</summary>
     public List<Suggestion> Suggestions { get; } = [];
@@ -44,14 +49,14 @@ public sealed class AssessmentBuilder
     public CardIndicator Indicator => _raised > _ceiling ? _ceiling : _raised;
 
     /// <summary>
-    /// Set when the low sodium is shown not to be hypotonic (hypertonic): the short evidence the summary leads with, e.g.
-    /// "osmolality 305 mOsm/kg". The card then opens with "Not hypotonic", and its indicator is capped at warning: the
-    /// correction limits of hypotonic hyponatremia do not apply and it is not an emergency low-sodium card.
+    /// Set when the low sodium is shown not to be hypotonic (hypertonic): the evidence the summary leads with (e.g. the
+    /// osmolality). The card then opens with "Not hypotonic", and its indicator is capped at warning: the correction
+    /// limits of hypotonic hyponatremia do not apply and it is not an emergency low-sodium card.
     /// </summary>
-    public string? NotHypotonicEvidence { get; private set; }
+    public Finding? NotHypotonicEvidence { get; private set; }
 
     /// <summary>Marks the card as not hypotonic (see <see cref="NotHypotonicEvidence"/>); the first call wins.</summary>
-    public void MarkNotHypotonic(string evidence) => NotHypotonicEvidence ??= evidence;
+    public void MarkNotHypotonic(Finding evidence) => NotHypotonicEvidence ??= evidence;
 
     /// <summary>The indicator the card carries: <see cref="Indicator"/>, capped at warning when not hypotonic.</summary>
     public CardIndicator FinalIndicator => NotHypotonicEvidence is not null && Indicator > CardIndicator.Warning ? CardIndicator.Warning : Indicator;
@@ -77,12 +82,12 @@ public sealed class AssessmentBuilder
     }
 
     /// <summary>Offers the short "what to do" clause of the summary; the highest priority wins, ties go to the first.</summary>
-    public void OfferSummaryAction(int priority, string text) => _summaryActions.Add((priority, text));
+    public void OfferSummaryAction(int priority, Finding action) => _summaryActions.Add((priority, action));
 
     /// <summary>The chosen summary clause, or null.</summary>
-    public string? SummaryAction => _summaryActions.Count == 0
+    public Finding? SummaryAction => _summaryActions.Count == 0
         ? null
-        : _summaryActions.OrderByDescending(a => a.Priority).First().Text;
+        : _summaryActions.OrderByDescending(a => a.Priority).First().Action;
 
     /// <summary>Adds a suggestion unless one with the same key is already there.</summary>
     public void Suggest(Suggestion suggestion)

@@ -26,7 +26,7 @@ public static class CardFooter
         Guard.NotNull(context, nameof(context));
         var age = context.Request.Facts.AgeAt(context.Request.Now);
         var adultFrom = context.Options.Severity.AdultFromAgeYears;
-        Write(detail, context.Request.Facts, sources, age < adultFrom ? [SafetyCautions.Paediatric(age.Value, adultFrom)] : [], context.Display);
+        Write(detail, context.Request.Facts, sources, age < adultFrom ? [Rendering.PhraseCatalogue.Default.Render(SafetyCautions.Paediatric(age.Value, adultFrom), context.Display)] : [], context.Display);
     }
 
     private static void Write(DetailWriter detail, PatientFacts facts, IEnumerable<string> sources, IReadOnlyList<string> requestCautions, TimeDisplay display)

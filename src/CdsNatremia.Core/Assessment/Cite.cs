@@ -11,30 +11,38 @@ public static class Cite
     {
         Guard.NotNull(result, nameof(result));
         Guard.NotNull(display, nameof(display));
+        var phrases = Rendering.PhraseCatalogue.Default;
         var labels = new List<string> { Markdown.Escape(result.Reference) };
         if (result.IsPreliminary)
         {
-            labels.Add("preliminary");
+            labels.Add(phrases.Text("cite.preliminary"));
         }
 
         if (result.IsWholeBlood)
         {
-            labels.Add("whole-blood specimen");
+            labels.Add(phrases.Text("cite.whole-blood"));
         }
 
         if (result.Origin == DataOrigin.FhirServer)
         {
-            labels.Add("fetched from the FHIR server");
+            labels.Add(phrases.Text("cite.fetched"));
         }
 
         if (result.OriginalUnit is { } unit && !string.Equals(unit, result.Unit, StringComparison.OrdinalIgnoreCase)
             && result.OriginalValue is { } original)
         {
-            labels.Add(Invariant.Format($"reported as {Invariant.Number(original)} {Markdown.Escape(unit)}"));
+            labels.Add(phrases.Render(Findings.Finding.Of("cite.reported-as", Findings.Slot.Number("value", original), Findings.Slot.Text("unit", unit)), display));
         }
 
-        return Invariant.Format(
-            $"{AnalyteUnits.DisplayName(result.Analyte)} {Invariant.Number(result.Value)} {result.Unit} at {display.Time(result.EffectiveAt)} ({string.Join("; ", labels)})");
+        return phrases.Render(
+            Findings.Finding.Of(
+                "cite.result",
+                Findings.Slot.Verbatim("analyte", AnalyteUnits.DisplayName(result.Analyte)),
+                Findings.Slot.Number("value", result.Value),
+                Findings.Slot.Verbatim("unit", result.Unit),
+                Findings.Slot.Time("time", result.EffectiveAt),
+                Findings.Slot.Verbatim("labels", string.Join("; ", labels))),
+            display);
     }
 
     /// <summary>"Observation/na-9 (Sodium 131 mg/dL, 2026-03-09 08:00 UTC): reason".</summary>
@@ -45,7 +53,7 @@ public static class Cite
         if (item.State == FactState.NotThisPatient)
         {
             // Privacy: another patient's data is never shown, not even its id or time.
-            return "a resource about another patient (not shown)";
+            return Rendering.PhraseCatalogue.Default.Text("cite.another-patient");
         }
 
         var when = item.At is { } at ? ", " + display.Time(at) : string.Empty;

@@ -104,7 +104,7 @@ public static class ImperfectSodiumCards
 
         if (context.Request.Facts.SodiumHistoryUnavailable is { } history)
         {
-            steps.Add(HistoryStep(history));
+            steps.Add(Rendering.PhraseCatalogue.Default.Render(HistoryStep(history), context.Display));
         }
 
         var detail = new DetailWriter()
@@ -175,8 +175,8 @@ public static class ImperfectSodiumCards
     }
 
     /// <summary>The reasoning step when the sodium history could not be had: which checks could therefore not be made.</summary>
-    public static string HistoryStep(string reason)
-        => "**Sodium history not available** (" + Markdown.Escape(reason) + "): this assessment rests on the results that arrived with the request, so the **onset** (acute or chronic), the **correction rate** and the **drug timing** against the fall could not be checked.";
+    public static Findings.Finding HistoryStep(string reason)
+        => Findings.Finding.Of(Findings.FindingKind.HistoryUnavailableStep, Findings.Slot.Text("reason", reason));
 
     private static CardIndicator CapForStaleness(DecisionContext context, LabResult result, CardIndicator indicator)
         => (context.Request.Now - result.EffectiveAt).TotalHours > context.Sodium.StaleAfterHours && indicator > CardIndicator.Warning

@@ -1,6 +1,7 @@
 using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Sodium;
 using CdsNatremia.Core.Text;
 
@@ -58,7 +59,7 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
         if (context.Request.Facts.SodiumHistoryUnavailable is { } history)
         {
             builder.Steps.Add(ImperfectSodiumCards.HistoryStep(history));
-            builder.Findings.Add("Sodium history was not available: onset, correction rate and drug timing could not be checked.");
+            builder.Findings.Add(Finding.Of(FindingKind.HistoryUnavailable).Weighted(Weights.DataGap));
         }
 
         return [Compose(context, latest, band, builder), .. builder.ExtraCards];
@@ -67,28 +68,42 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
     private Card Compose(DecisionContext context, LabResult latest, SeverityBand band, AssessmentBuilder builder)
     {
         var thresholds = context.Thresholds;
-        var labels = latest.IsPreliminary ? ", preliminary" : string.Empty;
+        var action = builder.SummaryAction ?? Finding.Of(FindingKind.ActionReview);
+        var sodiumSlots = new[]
+        {
+            Slot.Number("sodium", latest.Value),
+            Slot.Text("band", thresholds.NameOf(band)),
+            Slot.Time("age", latest.EffectiveAt, TimeStyle.Age),
+            Slot.Time("when", latest.EffectiveAt, TimeStyle.AgeAndTime),
+            Slot.Time("time", latest.EffectiveAt),
+            Slot.Phrase("action", action),
+        };
+
         // Tonicity decides the summary's opening: a hypertonic low sodium is "not hypotonic" first, never a low-sodium emergency.
         // That summary names the evidence and the likely osmole, so it carries the result's age only (the time is in the detail).
-        var summary = Summary.Fit(builder.NotHypotonicEvidence is { } evidence
-            ? Invariant.Format(
-                $"Not hypotonic: sodium {Invariant.Number(latest.Value)} mmol/L ({thresholds.NameOf(band)} range{labels}, {context.Display.Age(latest.EffectiveAt)}) with {evidence} — {builder.SummaryAction ?? "review"}.")
-            : Invariant.Format(
-                $"Sodium {Invariant.Number(latest.Value)} mmol/L ({thresholds.NameOf(band)} hyponatremia{labels}, {context.Display.AgeAndTime(latest.EffectiveAt)}) — {builder.SummaryAction ?? "review"}."));
+        var summary = builder.NotHypotonicEvidence is { } evidence
+            ? Finding.Of(latest.IsPreliminary ? FindingKind.SummaryNotHypotonicPreliminary : FindingKind.SummaryNotHypotonic, [.. sodiumSlots, Slot.Phrase("evidence", evidence)])
+            : Finding.Of(latest.IsPreliminary ? FindingKind.SummaryLowPreliminary : FindingKind.SummaryLow, sodiumSlots);
+        var headline = Finding.Of(
+            builder.NotHypotonicEvidence is null ? FindingKind.HeadlineLow : FindingKind.HeadlineNotHypotonic,
+            sodiumSlots).RestingOn(latest.Reference);
 
-        var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Low sodium work-up** as of {context.Display.Time(context.Request.Now)}. Advisory only."))
-            .Bullets("Findings", builder.Findings)
-            .Numbered("Reasoning (with the data each step used)", builder.Steps)
-            .Bullets("Possible causes to consider", builder.Differential)
-            .Bullets("What clinicians usually consider next", builder.NextSteps);
-        CardFooter.Write(detail, context, builder.Sources);
+        var content = new CardContent
+        {
+            Summary = summary,
+            Headline = headline,
+            Reasons = builder.Findings,
+            Steps = builder.Steps,
+            Causes = builder.Differential,
+            NextSteps = builder.NextSteps,
+            Cautions = builder.Cautions,
+            Sources = [.. builder.Sources],
+        };
 
         return new Card
         {
-            Summary = summary,
+            Content = content,
             Indicator = builder.FinalIndicator,
-            Detail = detail.ToString(),
             Topic = "sodium-assessment",
             RuleIds = [RuleId, .. builder.RuleIds],
             ResourcesUsed = [.. builder.ResourcesUsed],
@@ -108,22 +123,20 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
         }
 
         // Another patient's results are only counted (in the footer): they never shape the summary.
-        var detail = new DetailWriter()
-            .Paragraph(sodiumSetAside.Count > 0
-                ? Invariant.Format(
-                    $"**No usable sodium result.** {sodiumSetAside.Count} sodium result(s) of this patient were received but none could be used, so the service makes **no assessment** and gives no advice on them.")
-                : "**No usable sodium result of this patient** was received, so the service makes **no assessment**.")
-            .Bullets("What to do", ["Check the results in the laboratory system, and repeat the sodium if it is needed."]);
-        CardFooter.Write(detail, facts, [], context.Display);
+        var count = Slot.Count("count", sodiumSetAside.Count);
+        var content = new CardContent
+        {
+            Summary = Finding.Of(sodiumSetAside.Count > 0 ? FindingKind.UnusableSummary : FindingKind.UnusableOnlyOthersSummary, count),
+            Headline = Finding.Of(sodiumSetAside.Count > 0 ? FindingKind.UnusableHeadline : FindingKind.UnusableOnlyOthersHeadline, count),
+            NextSteps = [Finding.Of(FindingKind.UnusableNext)],
+            Sources = [],
+        };
         return
         [
             new Card
             {
-                Summary = Summary.Fit(sodiumSetAside.Count > 0
-                    ? Invariant.Format($"{sodiumSetAside.Count} sodium result(s) could not be used (see detail); no assessment made.")
-                    : "No usable sodium result of this patient; no assessment made — check the data and repeat sodium."),
+                Content = content,
                 Indicator = CardIndicator.Info,
-                Detail = detail.ToString(),
                 Topic = "sodium-assessment",
                 RuleIds = [RuleId, "sodium.unusable"],
                 ResourcesUsed = [],

@@ -1,4 +1,5 @@
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 
 namespace CdsNatremia.Core.Cards;
 
@@ -8,14 +9,26 @@ namespace CdsNatremia.Core.Cards;
 /// </summary>
 public sealed record Card
 {
-    /// <summary>One sentence, under 140 characters.</summary>
-    public required string Summary { get; init; }
+    /// <summary>
+    /// What the card found, as data (<see cref="CardContent"/>); the engine renders <see cref="Summary"/>,
+    /// <see cref="Detail"/> and <see cref="Report"/> from it once.
+    /// </summary>
+    public CardContent? Content { get; init; }
+
+    /// <summary>One sentence, under 140 characters (rendered from <see cref="Content"/>).</summary>
+    public string Summary { get; init; } = string.Empty;
 
     /// <summary>info, warning or critical.</summary>
     public required CardIndicator Indicator { get; init; }
 
-    /// <summary>GitHub-flavoured Markdown: reasoning, data used, data set aside, next steps, cautions, sources.</summary>
-    public required string Detail { get; init; }
+    /// <summary>The short card in GitHub-flavoured Markdown, at most <see cref="Rendering.CardRenderer.DetailBudget"/> characters.</summary>
+    public string Detail { get; init; } = string.Empty;
+
+    /// <summary>
+    /// The full report behind the card's link (Markdown): reasoning with the data each step used, data set aside, data not
+    /// obtained, cautions and sources.
+    /// </summary>
+    public string Report { get; init; } = string.Empty;
 
     /// <summary>Topic code in our own card-topic CodeSystem, e.g. "sodium-assessment".</summary>
     public required string Topic { get; init; }

@@ -26,6 +26,11 @@ public static class FindingsFingerprint
             "bound=" + (context.Sodium.NewestBound?.Reference ?? "-"),
         };
         parts.AddRange(card.RuleIds.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).Select(r => "rule=" + r));
+        if (card.Content is { } content)
+        {
+            parts.AddRange(content.All().Select(f => f.Kind).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).Select(k => "finding=" + k));
+        }
+
         parts.AddRange(card.ResourcesUsed.Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).Select(r => "used=" + r));
         return Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(string.Join("\n", parts))));
     }

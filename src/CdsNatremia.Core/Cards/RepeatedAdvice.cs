@@ -14,12 +14,16 @@ public static class RepeatedAdvice
     {
         Guard.NotNull(card, nameof(card));
         Guard.NotNull(display, nameof(display));
-        var note = Invariant.Format(
-            $"**Already reviewed**: a clinician answered this card for the same findings, last reviewed {display.Time(lastReviewedAt)} ({display.Age(lastReviewedAt)}). Nothing new since (same newest sodium, same band, same medicines), so it is shown as information; it interrupts again when something new appears.");
+        var phrases = Rendering.PhraseCatalogue.Default;
+        var note = phrases.Render(
+            Findings.Finding.Of(Findings.FindingKind.AlreadyReviewed, Findings.Slot.Time("time", lastReviewedAt), Findings.Slot.Time("age", lastReviewedAt, Findings.TimeStyle.Age)),
+            display);
         return card with
         {
             Indicator = CardIndicator.Info,
-            Summary = Summary.Fit("Last reviewed " + display.Age(lastReviewedAt) + ": " + card.Summary),
+            Summary = Summary.Fit(phrases.Render(
+                Findings.Finding.Of(Findings.FindingKind.AlreadyReviewedSummary, Findings.Slot.Time("age", lastReviewedAt, Findings.TimeStyle.Age), Findings.Slot.Verbatim("summary", card.Summary)),
+                display)),
             Detail = note + "\n\n" + card.Detail,
         };
     }

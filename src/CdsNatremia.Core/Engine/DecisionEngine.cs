@@ -1,4 +1,6 @@
 using CdsNatremia.Core.Cards;
+using CdsNatremia.Core.Findings;
+using CdsNatremia.Core.Rendering;
 using CdsNatremia.Core.Knowledge;
 
 namespace CdsNatremia.Core.Engine;
@@ -48,11 +50,46 @@ public sealed class DecisionEngine
     /// override reasons of its kind (<see cref="OverrideReasonChoice"/>) and the findings fingerprint (<see cref="FindingsFingerprint"/>).
     /// </summary>
     private Card Finish(Card card, DecisionContext context)
-        => SuggestionPolicy.Apply(card, context.Request.Hook) with
+    {
+        var rendered = Render(card, context);
+        return SuggestionPolicy.Apply(rendered, context.Request.Hook) with
         {
-            OverrideReasons = OverrideReasonChoice.For(card.Topic, _knowledge),
-            Fingerprint = FindingsFingerprint.Of(card, context),
+            OverrideReasons = OverrideReasonChoice.For(rendered.Topic, _knowledge),
+            Fingerprint = FindingsFingerprint.Of(rendered, context),
         };
+    }
+
+    /// <summary>
+    /// Renders the card's findings once: the summary and short detail (<see cref="CardRenderer"/>) and the full report
+    /// (<see cref="ReportRenderer"/>). A child's caution is added here, to every card, in one place.
+    /// </summary>
+    private static Card Render(Card card, DecisionContext context)
+    {
+        if (card.Content is not { } content)
+        {
+            return card with { Report = card.Report.Length > 0 ? card.Report : card.Detail };
+        }
+
+        var age = context.Request.Facts.AgeAt(context.Request.Now);
+        var adultFrom = context.Options.Severity.AdultFromAgeYears;
+        if (age < adultFrom)
+        {
+            content = content with
+            {
+                Cautions = [Finding.Of(FindingKind.PaediatricCautionShort, Slot.Count("age", age.Value)), .. content.Cautions],
+                Steps = [.. content.Steps, SafetyCautions.Paediatric(age.Value, adultFrom)],
+            };
+        }
+
+        var render = new RenderContext(context.Request.Facts, context.Display);
+        return card with
+        {
+            Content = content,
+            Summary = CardRenderer.Summary(content, render),
+            Detail = CardRenderer.Detail(content, render),
+            Report = ReportRenderer.Render(content, render),
+        };
+    }
 
     /// <summary>How this engine shows times for a request at <paramref name="now"/> (its display zone).</summary>
     public Text.TimeDisplay DisplayAt(DateTimeOffset now) => new(_displayZone, now);
