@@ -17,7 +17,7 @@ public class PaediatricTests
     public void Apply_AgeAroundTheAdultEdge_ChildCautionOnlyUnder18(int age, bool child)
     {
         var card = SomeClinical.Assessment(SomeClinical.Woman(age, Some.Sodium(127, 2)));
-        Assert.Equal(child, card.Detail.Contains(ChildCaution, StringComparison.Ordinal));
+        Assert.Equal(child, card.Report.Contains(ChildCaution, StringComparison.Ordinal));
         Assert.Equal(child, card.Summary.Contains("adult limits may not apply", StringComparison.Ordinal));
     }
 
@@ -25,20 +25,20 @@ public class PaediatricTests
     public void Apply_ChildCautionIsTheFirstFinding()
     {
         var card = SomeClinical.Assessment(SomeClinical.Woman(9, Some.Sodium(122, 2)));
-        var findings = card.Detail.IndexOf("**Findings**", StringComparison.Ordinal);
-        Assert.Equal(findings, card.Detail.IndexOf("**Findings**\n\n- **This patient is a child (9 years old, under 18)**", StringComparison.Ordinal));
+        var findings = card.Report.IndexOf("**Findings**", StringComparison.Ordinal);
+        Assert.Equal(findings, card.Report.IndexOf("**Findings**\n\n- **This patient is a child (9 years old, under 18)**", StringComparison.Ordinal));
     }
 
     [Fact]
     public void Apply_AdultAgeConfiguredAt16_SeventeenIsAnAdult()
     {
         var options = new RuleOptions { Severity = new SeverityOptions { AdultFromAgeYears = 16 } };
-        Assert.DoesNotContain(ChildCaution, SomeClinical.Assessment(SomeClinical.Woman(17, Some.Sodium(127, 2)), options).Detail, StringComparison.Ordinal);
+        Assert.DoesNotContain(ChildCaution, SomeClinical.Assessment(SomeClinical.Woman(17, Some.Sodium(127, 2)), options).Report, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Apply_UnknownBirthDate_NoChildCaution()
-        => Assert.DoesNotContain(ChildCaution, SomeClinical.Assessment(Some.Facts(Some.Sodium(127, 2))).Detail, StringComparison.Ordinal);
+        => Assert.DoesNotContain(ChildCaution, SomeClinical.Assessment(Some.Facts(Some.Sodium(127, 2))).Report, StringComparison.Ordinal);
 
     [Fact]
     public void Produce_ChildOnEveryCardKindThatGivesLimits_CautionInEachCard()
@@ -55,6 +55,6 @@ public class PaediatricTests
         ]);
         var topics = rate.Concat(orders).Select(c => c.Topic).ToHashSet();
         Assert.Superset(new HashSet<string> { "sodium-assessment", "correction-rate", "infusion-prediction", "rate-caution-order", "drug-order-warning" }, topics);
-        Assert.All(rate.Concat(orders), c => Assert.Contains(ChildCaution, c.Detail, StringComparison.Ordinal));
+        Assert.All(rate.Concat(orders), c => Assert.Contains(ChildCaution, c.Report, StringComparison.Ordinal));
     }
 }

@@ -35,7 +35,7 @@ public partial class CorruptedInputPropertyTests
             cards.Count == 0 ? 1 : 0,
             cards.Count == 0 ? 0 : -(int)cards.Max(c => c.Indicator),
             -cards.Count,
-            cards.Sum(c => ReassuringClaim().Count(c.Detail)));
+            cards.Sum(c => ReassuringClaim().Count(c.Report)));
     }
 
     [GeneratedRegex(@": \*\*met\*\*|consistent with SIADH|within the limit|none found in the record|the usual limits apply")]

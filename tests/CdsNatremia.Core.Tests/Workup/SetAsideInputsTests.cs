@@ -101,11 +101,11 @@ public class SetAsideInputsTests
             Some.Lab(Analyte.Thyrotropin, 2.1, 2), Some.Lab(Analyte.Cortisol, 420, 2),
         ]);
         var card = WorkupTestData.Card(Some.Facts([.. labs]) with { Medications = [unreadable] });
-        Assert.DoesNotContain("consistent with SIADH", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("diuretic use: **unknown** (could not be read", card.Detail, StringComparison.Ordinal);
+        Assert.DoesNotContain("consistent with SIADH", card.Report, StringComparison.Ordinal);
+        Assert.Contains("diuretic use: **unknown** (could not be read", card.Report, StringComparison.Ordinal);
         // The SIADH line says once that the criterion could not be read, then names the item.
-        Assert.Contains("No recent diuretic use: **unknown (could not be read)**: MedicationStatement/combo", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("could not be read)**: could not be read", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("No recent diuretic use: **unknown (could not be read)**: MedicationStatement/combo", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("could not be read)**: could not be read", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -113,15 +113,15 @@ public class SetAsideInputsTests
     {
         var facts = Facts() with { SetAside = [new SetAsideItem("Observation/uosm-9", "Urine osmolality 400 mg", "unit 'mg' is not accepted", Analyte.UrineOsmolality, Some.Now.AddHours(-1))] };
         var card = WorkupTestData.Card(facts);
-        Assert.Contains("**Urine osmolality**: **unknown** (could not be read: urine osmolality Observation/uosm-9", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("(2) Urine osmolality > 100 mOsm/kg: **unknown (could not be read)**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**Urine osmolality**: **unknown** (could not be read: urine osmolality Observation/uosm-9", card.Report, StringComparison.Ordinal);
+        Assert.Contains("(2) Urine osmolality > 100 mOsm/kg: **unknown (could not be read)**", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Card_ThiazideStoppedFourDaysAgo_ListedRecentlyStoppedAsPossibleNeverLikely()
     {
         var card = WorkupTestData.Card(Facts() with { StoppedMedications = [Stopped(4)] });
-        Assert.Contains("diuretic recently stopped", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("likely contributor", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("diuretic recently stopped", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("likely contributor", card.Report, StringComparison.Ordinal);
     }
 }

@@ -1,0 +1,272 @@
+namespace CdsNatremia.Core.Findings;
+
+/// <summary>Finding kinds of the work-up (phrases in Phrases/work-up.resx); generated from the phrase list, one constant per phrase.</summary>
+public static partial class FindingKind
+{
+    /// <summary>Phrase <c>severity.finding</c>.</summary>
+    public const string SeverityFinding = "severity.finding";
+
+    /// <summary>Phrase <c>severity.step</c>.</summary>
+    public const string SeverityStep = "severity.step";
+
+    /// <summary>Phrase <c>severity.stale.step</c>.</summary>
+    public const string SeverityStaleStep = "severity.stale.step";
+
+    /// <summary>Phrase <c>severity.stale.caution</c>.</summary>
+    public const string SeverityStaleCaution = "severity.stale.caution";
+
+    /// <summary>Phrase <c>severity.stale.action</c>.</summary>
+    public const string SeverityStaleAction = "severity.stale.action";
+
+    /// <summary>Phrase <c>severity.stale.order</c>.</summary>
+    public const string SeverityStaleOrder = "severity.stale.order";
+
+    /// <summary>Phrase <c>severity.preliminary.step</c>.</summary>
+    public const string SeverityPreliminaryStep = "severity.preliminary.step";
+
+    /// <summary>Phrase <c>severity.whole-blood.step</c>.</summary>
+    public const string SeverityWholeBloodStep = "severity.whole-blood.step";
+
+    /// <summary>Phrase <c>severity.newer-unused.step</c>.</summary>
+    public const string SeverityNewerUnusedStep = "severity.newer-unused.step";
+
+    /// <summary>Phrase <c>severity.newer-unused.finding</c>.</summary>
+    public const string SeverityNewerUnusedFinding = "severity.newer-unused.finding";
+
+    /// <summary>Phrase <c>severity.newer-unused.order</c>.</summary>
+    public const string SeverityNewerUnusedOrder = "severity.newer-unused.order";
+
+    /// <summary>Phrase <c>severity.newer-unused.action</c>.</summary>
+    public const string SeverityNewerUnusedAction = "severity.newer-unused.action";
+
+    /// <summary>Phrase <c>severity.profound.next</c>.</summary>
+    public const string SeverityProfoundNext = "severity.profound.next";
+
+    /// <summary>Phrase <c>severity.profound.action</c>.</summary>
+    public const string SeverityProfoundAction = "severity.profound.action";
+
+    /// <summary>Phrase <c>severity.moderate.next</c>.</summary>
+    public const string SeverityModerateNext = "severity.moderate.next";
+
+    /// <summary>Phrase <c>severity.moderate.action</c>.</summary>
+    public const string SeverityModerateAction = "severity.moderate.action";
+
+    /// <summary>Phrase <c>severity.mild.next</c>.</summary>
+    public const string SeverityMildNext = "severity.mild.next";
+
+    /// <summary>Phrase <c>severity.mild.action</c>.</summary>
+    public const string SeverityMildAction = "severity.mild.action";
+
+    /// <summary>Phrase <c>paediatric.step</c>.</summary>
+    public const string PaediatricStep = "paediatric.step";
+
+    /// <summary>Phrase <c>paediatric.next</c>.</summary>
+    public const string PaediatricNext = "paediatric.next";
+
+    /// <summary>Phrase <c>paediatric.action</c>.</summary>
+    public const string PaediatricAction = "paediatric.action";
+
+    /// <summary>Phrase <c>cortisol.basis.laboratory</c>.</summary>
+    public const string CortisolBasisLaboratory = "cortisol.basis.laboratory";
+
+    /// <summary>Phrase <c>cortisol.basis.default</c>.</summary>
+    public const string CortisolBasisDefault = "cortisol.basis.default";
+
+    /// <summary>Phrase <c>cortisol.finding</c>.</summary>
+    public const string CortisolFinding = "cortisol.finding";
+
+    /// <summary>Phrase <c>cortisol.step</c>.</summary>
+    public const string CortisolStep = "cortisol.step";
+
+    /// <summary>Phrase <c>cortisol.cause</c>.</summary>
+    public const string CortisolCause = "cortisol.cause";
+
+    /// <summary>Phrase <c>cortisol.next</c>.</summary>
+    public const string CortisolNext = "cortisol.next";
+
+    /// <summary>Phrase <c>cortisol.next.replacement</c>.</summary>
+    public const string CortisolNextReplacement = "cortisol.next.replacement";
+
+    /// <summary>Phrase <c>cortisol.action</c>.</summary>
+    public const string CortisolAction = "cortisol.action";
+
+    /// <summary>Phrase <c>missing.serum-osmolality</c>.</summary>
+    public const string MissingSerumOsmolality = "missing.serum-osmolality";
+
+    /// <summary>Phrase <c>missing.glucose</c>.</summary>
+    public const string MissingGlucose = "missing.glucose";
+
+    /// <summary>Phrase <c>missing.urine-osmolality</c>.</summary>
+    public const string MissingUrineOsmolality = "missing.urine-osmolality";
+
+    /// <summary>Phrase <c>missing.urine-sodium</c>.</summary>
+    public const string MissingUrineSodium = "missing.urine-sodium";
+
+    /// <summary>Phrase <c>missing.tsh</c>.</summary>
+    public const string MissingTsh = "missing.tsh";
+
+    /// <summary>Phrase <c>missing.cortisol</c>.</summary>
+    public const string MissingCortisol = "missing.cortisol";
+
+    /// <summary>Phrase <c>missing.triglyceride</c>.</summary>
+    public const string MissingTriglyceride = "missing.triglyceride";
+
+    /// <summary>Phrase <c>missing.total-protein</c>.</summary>
+    public const string MissingTotalProtein = "missing.total-protein";
+
+    /// <summary>Phrase <c>missing.serum-osmolality.order</c>.</summary>
+    public const string MissingSerumOsmolalityOrder = "missing.serum-osmolality.order";
+
+    /// <summary>Phrase <c>missing.glucose.order</c>.</summary>
+    public const string MissingGlucoseOrder = "missing.glucose.order";
+
+    /// <summary>Phrase <c>missing.urine-osmolality.order</c>.</summary>
+    public const string MissingUrineOsmolalityOrder = "missing.urine-osmolality.order";
+
+    /// <summary>Phrase <c>missing.urine-sodium.order</c>.</summary>
+    public const string MissingUrineSodiumOrder = "missing.urine-sodium.order";
+
+    /// <summary>Phrase <c>missing.tsh.order</c>.</summary>
+    public const string MissingTshOrder = "missing.tsh.order";
+
+    /// <summary>Phrase <c>missing.cortisol.order</c>.</summary>
+    public const string MissingCortisolOrder = "missing.cortisol.order";
+
+    /// <summary>Phrase <c>missing.triglyceride.order</c>.</summary>
+    public const string MissingTriglycerideOrder = "missing.triglyceride.order";
+
+    /// <summary>Phrase <c>missing.total-protein.order</c>.</summary>
+    public const string MissingTotalProteinOrder = "missing.total-protein.order";
+
+    /// <summary>Phrase <c>missing.next</c>.</summary>
+    public const string MissingNext = "missing.next";
+
+    /// <summary>Phrase <c>missing.next.labs-unreadable</c>.</summary>
+    public const string MissingNextLabsUnreadable = "missing.next.labs-unreadable";
+
+    /// <summary>Phrase <c>missing.finding</c>.</summary>
+    public const string MissingFinding = "missing.finding";
+
+    /// <summary>Phrase <c>volume.clue.condition</c>.</summary>
+    public const string VolumeClueCondition = "volume.clue.condition";
+
+    /// <summary>Phrase <c>volume.clue.condition-text</c>.</summary>
+    public const string VolumeClueConditionText = "volume.clue.condition-text";
+
+    /// <summary>Phrase <c>volume.clue.diuretic</c>.</summary>
+    public const string VolumeClueDiuretic = "volume.clue.diuretic";
+
+    /// <summary>Phrase <c>volume.clue.diuretic-stopped</c>.</summary>
+    public const string VolumeClueDiureticStopped = "volume.clue.diuretic-stopped";
+
+    /// <summary>Phrase <c>volume.clue.diuretic-unknown</c>.</summary>
+    public const string VolumeClueDiureticUnknown = "volume.clue.diuretic-unknown";
+
+    /// <summary>Phrase <c>volume.gap.conditions</c>.</summary>
+    public const string VolumeGapConditions = "volume.gap.conditions";
+
+    /// <summary>Phrase <c>volume.gap.medications</c>.</summary>
+    public const string VolumeGapMedications = "volume.gap.medications";
+
+    /// <summary>Phrase <c>volume.gap.both</c>.</summary>
+    public const string VolumeGapBoth = "volume.gap.both";
+
+    /// <summary>Phrase <c>volume.step</c>.</summary>
+    public const string VolumeStep = "volume.step";
+
+    /// <summary>Phrase <c>volume.step.none</c>.</summary>
+    public const string VolumeStepNone = "volume.step.none";
+
+    /// <summary>Phrase <c>volume.cause.low</c>.</summary>
+    public const string VolumeCauseLow = "volume.cause.low";
+
+    /// <summary>Phrase <c>volume.cause.normal</c>.</summary>
+    public const string VolumeCauseNormal = "volume.cause.normal";
+
+    /// <summary>Phrase <c>volume.cause.high</c>.</summary>
+    public const string VolumeCauseHigh = "volume.cause.high";
+
+    /// <summary>Phrase <c>volume.next</c>.</summary>
+    public const string VolumeNext = "volume.next";
+
+    /// <summary>Phrase <c>volume.meaning.heart-failure</c>.</summary>
+    public const string VolumeMeaningHeartFailure = "volume.meaning.heart-failure";
+
+    /// <summary>Phrase <c>volume.meaning.cirrhosis</c>.</summary>
+    public const string VolumeMeaningCirrhosis = "volume.meaning.cirrhosis";
+
+    /// <summary>Phrase <c>volume.meaning.nephrotic-syndrome</c>.</summary>
+    public const string VolumeMeaningNephroticSyndrome = "volume.meaning.nephrotic-syndrome";
+
+    /// <summary>Phrase <c>volume.meaning.chronic-kidney-disease</c>.</summary>
+    public const string VolumeMeaningChronicKidneyDisease = "volume.meaning.chronic-kidney-disease";
+
+    /// <summary>Phrase <c>volume.meaning.vomiting</c>.</summary>
+    public const string VolumeMeaningVomiting = "volume.meaning.vomiting";
+
+    /// <summary>Phrase <c>volume.meaning.diarrhoea</c>.</summary>
+    public const string VolumeMeaningDiarrhoea = "volume.meaning.diarrhoea";
+
+    /// <summary>Phrase <c>volume.meaning.adrenal-insufficiency</c>.</summary>
+    public const string VolumeMeaningAdrenalInsufficiency = "volume.meaning.adrenal-insufficiency";
+
+    /// <summary>Phrase <c>volume.meaning.hypothyroidism</c>.</summary>
+    public const string VolumeMeaningHypothyroidism = "volume.meaning.hypothyroidism";
+
+    /// <summary>Phrase <c>volume.meaning.pneumonia</c>.</summary>
+    public const string VolumeMeaningPneumonia = "volume.meaning.pneumonia";
+
+    /// <summary>Phrase <c>volume.meaning.intracranial-disorder</c>.</summary>
+    public const string VolumeMeaningIntracranialDisorder = "volume.meaning.intracranial-disorder";
+
+    /// <summary>Phrase <c>volume.meaning.small-cell-lung-cancer</c>.</summary>
+    public const string VolumeMeaningSmallCellLungCancer = "volume.meaning.small-cell-lung-cancer";
+
+    /// <summary>Phrase <c>volume.meaning.alcohol-use-disorder</c>.</summary>
+    public const string VolumeMeaningAlcoholUseDisorder = "volume.meaning.alcohol-use-disorder";
+
+    /// <summary>Phrase <c>volume.meaning.malnutrition</c>.</summary>
+    public const string VolumeMeaningMalnutrition = "volume.meaning.malnutrition";
+
+    /// <summary>Phrase <c>onset.acute.step</c>.</summary>
+    public const string OnsetAcuteStep = "onset.acute.step";
+
+    /// <summary>Phrase <c>onset.acute.finding</c>.</summary>
+    public const string OnsetAcuteFinding = "onset.acute.finding";
+
+    /// <summary>Phrase <c>onset.acute.next</c>.</summary>
+    public const string OnsetAcuteNext = "onset.acute.next";
+
+    /// <summary>Phrase <c>onset.acute.caution</c>.</summary>
+    public const string OnsetAcuteCaution = "onset.acute.caution";
+
+    /// <summary>Phrase <c>onset.acute.action</c>.</summary>
+    public const string OnsetAcuteAction = "onset.acute.action";
+
+    /// <summary>Phrase <c>onset.chronic.no-normal</c>.</summary>
+    public const string OnsetChronicNoNormal = "onset.chronic.no-normal";
+
+    /// <summary>Phrase <c>onset.chronic.too-old-now</c>.</summary>
+    public const string OnsetChronicTooOldNow = "onset.chronic.too-old-now";
+
+    /// <summary>Phrase <c>onset.chronic.not-within</c>.</summary>
+    public const string OnsetChronicNotWithin = "onset.chronic.not-within";
+
+    /// <summary>Phrase <c>onset.chronic.step</c>.</summary>
+    public const string OnsetChronicStep = "onset.chronic.step";
+
+    /// <summary>Phrase <c>diuretic.describe</c>.</summary>
+    public const string DiureticDescribe = "diuretic.describe";
+
+    /// <summary>Phrase <c>diuretic.describe.intended</c>.</summary>
+    public const string DiureticDescribeIntended = "diuretic.describe.intended";
+
+    /// <summary>Phrase <c>diuretic.describe.stopped</c>.</summary>
+    public const string DiureticDescribeStopped = "diuretic.describe.stopped";
+
+    /// <summary>Phrase <c>diuretic.since</c>.</summary>
+    public const string DiureticSince = "diuretic.since";
+
+    /// <summary>Phrase <c>diuretic.since.unknown</c>.</summary>
+    public const string DiureticSinceUnknown = "diuretic.since.unknown";
+}
