@@ -269,4 +269,238 @@ public static partial class FindingKind
 
     /// <summary>Phrase <c>diuretic.since.unknown</c>.</summary>
     public const string DiureticSinceUnknown = "diuretic.since.unknown";
+
+    /// <summary>Phrase <c>urine.cite</c>.</summary>
+    public const string UrineCite = "urine.cite";
+
+    /// <summary>Phrase <c>urine.cite.labelled</c>.</summary>
+    public const string UrineCiteLabelled = "urine.cite.labelled";
+
+    /// <summary>Phrase <c>urine.label.apart</c>.</summary>
+    public const string UrineLabelApart = "urine.label.apart";
+
+    /// <summary>Phrase <c>urine.label.diuretic</c>.</summary>
+    public const string UrineLabelDiuretic = "urine.label.diuretic";
+
+    /// <summary>Phrase <c>urine.offset.same</c>.</summary>
+    public const string UrineOffsetSame = "urine.offset.same";
+
+    /// <summary>Phrase <c>urine.offset.after</c>.</summary>
+    public const string UrineOffsetAfter = "urine.offset.after";
+
+    /// <summary>Phrase <c>urine.offset.before</c>.</summary>
+    public const string UrineOffsetBefore = "urine.offset.before";
+
+    /// <summary>Phrase <c>urine.osmolality.dilute.step</c>.</summary>
+    public const string UrineOsmolalityDiluteStep = "urine.osmolality.dilute.step";
+
+    /// <summary>Phrase <c>urine.osmolality.dilute.sodium-note</c>.</summary>
+    public const string UrineOsmolalityDiluteSodiumNote = "urine.osmolality.dilute.sodium-note";
+
+    /// <summary>Phrase <c>urine.osmolality.dilute.finding</c>.</summary>
+    public const string UrineOsmolalityDiluteFinding = "urine.osmolality.dilute.finding";
+
+    /// <summary>Phrase <c>urine.osmolality.dilute.cause</c>.</summary>
+    public const string UrineOsmolalityDiluteCause = "urine.osmolality.dilute.cause";
+
+    /// <summary>Phrase <c>urine.osmolality.dilute.next</c>.</summary>
+    public const string UrineOsmolalityDiluteNext = "urine.osmolality.dilute.next";
+
+    /// <summary>Phrase <c>urine.osmolality.concentrated.step</c>.</summary>
+    public const string UrineOsmolalityConcentratedStep = "urine.osmolality.concentrated.step";
+
+    /// <summary>Phrase <c>urine.osmolality.missing.step</c>.</summary>
+    public const string UrineOsmolalityMissingStep = "urine.osmolality.missing.step";
+
+    /// <summary>Phrase <c>urine.sodium.missing.step</c>.</summary>
+    public const string UrineSodiumMissingStep = "urine.sodium.missing.step";
+
+    /// <summary>Phrase <c>urine.sodium.low.step</c>.</summary>
+    public const string UrineSodiumLowStep = "urine.sodium.low.step";
+
+    /// <summary>Phrase <c>urine.sodium.low.diuretic-note</c>.</summary>
+    public const string UrineSodiumLowDiureticNote = "urine.sodium.low.diuretic-note";
+
+    /// <summary>Phrase <c>urine.sodium.low.finding</c>.</summary>
+    public const string UrineSodiumLowFinding = "urine.sodium.low.finding";
+
+    /// <summary>Phrase <c>urine.sodium.low.cause</c>.</summary>
+    public const string UrineSodiumLowCause = "urine.sodium.low.cause";
+
+    /// <summary>Phrase <c>urine.sodium.high.step</c>.</summary>
+    public const string UrineSodiumHighStep = "urine.sodium.high.step";
+
+    /// <summary>Phrase <c>urine.sodium.high.diuretic-note</c>.</summary>
+    public const string UrineSodiumHighDiureticNote = "urine.sodium.high.diuretic-note";
+
+    /// <summary>Phrase <c>urine.sodium.high.finding</c>.</summary>
+    public const string UrineSodiumHighFinding = "urine.sodium.high.finding";
+
+    /// <summary>Phrase <c>urine.sodium.high.finding.diuretic</c>.</summary>
+    public const string UrineSodiumHighFindingDiuretic = "urine.sodium.high.finding.diuretic";
+
+    /// <summary>Phrase <c>urine.sodium.high.cause</c>.</summary>
+    public const string UrineSodiumHighCause = "urine.sodium.high.cause";
+
+    /// <summary>Phrase <c>urine.not-usable.absent</c>.</summary>
+    public const string UrineNotUsableAbsent = "urine.not-usable.absent";
+
+    /// <summary>Phrase <c>urine.not-usable.bound</c>.</summary>
+    public const string UrineNotUsableBound = "urine.not-usable.bound";
+
+    /// <summary>Phrase <c>urine.not-usable.unread</c>.</summary>
+    public const string UrineNotUsableUnread = "urine.not-usable.unread";
+
+    /// <summary>Phrase <c>siadh.name.effective</c>.</summary>
+    public const string SiadhNameEffective = "siadh.name.effective";
+
+    /// <summary>Phrase <c>siadh.name.urine-osmolality</c>.</summary>
+    public const string SiadhNameUrineOsmolality = "siadh.name.urine-osmolality";
+
+    /// <summary>Phrase <c>siadh.name.urine-sodium</c>.</summary>
+    public const string SiadhNameUrineSodium = "siadh.name.urine-sodium";
+
+    /// <summary>Phrase <c>siadh.name.euvolaemia</c>.</summary>
+    public const string SiadhNameEuvolaemia = "siadh.name.euvolaemia";
+
+    /// <summary>Phrase <c>siadh.name.thyroid</c>.</summary>
+    public const string SiadhNameThyroid = "siadh.name.thyroid";
+
+    /// <summary>Phrase <c>siadh.name.adrenal</c>.</summary>
+    public const string SiadhNameAdrenal = "siadh.name.adrenal";
+
+    /// <summary>Phrase <c>siadh.name.diuretics</c>.</summary>
+    public const string SiadhNameDiuretics = "siadh.name.diuretics";
+
+    /// <summary>Phrase <c>siadh.status.met</c>.</summary>
+    public const string SiadhStatusMet = "siadh.status.met";
+
+    /// <summary>Phrase <c>siadh.status.not-met</c>.</summary>
+    public const string SiadhStatusNotMet = "siadh.status.not-met";
+
+    /// <summary>Phrase <c>siadh.status.unknown</c>.</summary>
+    public const string SiadhStatusUnknown = "siadh.status.unknown";
+
+    /// <summary>Phrase <c>siadh.status.could-not-be-read</c>.</summary>
+    public const string SiadhStatusCouldNotBeRead = "siadh.status.could-not-be-read";
+
+    /// <summary>Phrase <c>siadh.status.clinician</c>.</summary>
+    public const string SiadhStatusClinician = "siadh.status.clinician";
+
+    /// <summary>Phrase <c>siadh.data.effective.measured</c>.</summary>
+    public const string SiadhDataEffectiveMeasured = "siadh.data.effective.measured";
+
+    /// <summary>Phrase <c>siadh.data.effective.calculated</c>.</summary>
+    public const string SiadhDataEffectiveCalculated = "siadh.data.effective.calculated";
+
+    /// <summary>Phrase <c>siadh.data.no-serum-osmolality</c>.</summary>
+    public const string SiadhDataNoSerumOsmolality = "siadh.data.no-serum-osmolality";
+
+    /// <summary>Phrase <c>siadh.data.result</c>.</summary>
+    public const string SiadhDataResult = "siadh.data.result";
+
+    /// <summary>Phrase <c>siadh.data.euvolaemia</c>.</summary>
+    public const string SiadhDataEuvolaemia = "siadh.data.euvolaemia";
+
+    /// <summary>Phrase <c>siadh.data.no-tsh</c>.</summary>
+    public const string SiadhDataNoTsh = "siadh.data.no-tsh";
+
+    /// <summary>Phrase <c>siadh.data.tsh</c>.</summary>
+    public const string SiadhDataTsh = "siadh.data.tsh";
+
+    /// <summary>Phrase <c>siadh.data.tsh.default</c>.</summary>
+    public const string SiadhDataTshDefault = "siadh.data.tsh.default";
+
+    /// <summary>Phrase <c>siadh.data.no-cortisol</c>.</summary>
+    public const string SiadhDataNoCortisol = "siadh.data.no-cortisol";
+
+    /// <summary>Phrase <c>siadh.data.cortisol</c>.</summary>
+    public const string SiadhDataCortisol = "siadh.data.cortisol";
+
+    /// <summary>Phrase <c>siadh.data.cortisol.default</c>.</summary>
+    public const string SiadhDataCortisolDefault = "siadh.data.cortisol.default";
+
+    /// <summary>Phrase <c>siadh.data.cortisol.caveat</c>.</summary>
+    public const string SiadhDataCortisolCaveat = "siadh.data.cortisol.caveat";
+
+    /// <summary>Phrase <c>siadh.data.diuretics-looked</c>.</summary>
+    public const string SiadhDataDiureticsLooked = "siadh.data.diuretics-looked";
+
+    /// <summary>Phrase <c>siadh.data.diuretics-found</c>.</summary>
+    public const string SiadhDataDiureticsFound = "siadh.data.diuretics-found";
+
+    /// <summary>Phrase <c>siadh.data.bound</c>.</summary>
+    public const string SiadhDataBound = "siadh.data.bound";
+
+    /// <summary>Phrase <c>siadh.data.bound.undecided</c>.</summary>
+    public const string SiadhDataBoundUndecided = "siadh.data.bound.undecided";
+
+    /// <summary>Phrase <c>siadh.data.bound.not-measured</c>.</summary>
+    public const string SiadhDataBoundNotMeasured = "siadh.data.bound.not-measured";
+
+    /// <summary>Phrase <c>siadh.data.unread</c>.</summary>
+    public const string SiadhDataUnread = "siadh.data.unread";
+
+    /// <summary>Phrase <c>siadh.data.unread.named</c>.</summary>
+    public const string SiadhDataUnreadNamed = "siadh.data.unread.named";
+
+    /// <summary>Phrase <c>siadh.data.no-urine-osmolality</c>.</summary>
+    public const string SiadhDataNoUrineOsmolality = "siadh.data.no-urine-osmolality";
+
+    /// <summary>Phrase <c>siadh.data.no-urine-sodium</c>.</summary>
+    public const string SiadhDataNoUrineSodium = "siadh.data.no-urine-sodium";
+
+    /// <summary>Phrase <c>siadh.line</c>.</summary>
+    public const string SiadhLine = "siadh.line";
+
+    /// <summary>Phrase <c>siadh.verdict.not-met</c>.</summary>
+    public const string SiadhVerdictNotMet = "siadh.verdict.not-met";
+
+    /// <summary>Phrase <c>siadh.verdict.unknown</c>.</summary>
+    public const string SiadhVerdictUnknown = "siadh.verdict.unknown";
+
+    /// <summary>Phrase <c>siadh.verdict.consistent</c>.</summary>
+    public const string SiadhVerdictConsistent = "siadh.verdict.consistent";
+
+    /// <summary>Phrase <c>siadh.step</c>.</summary>
+    public const string SiadhStep = "siadh.step";
+
+    /// <summary>Phrase <c>siadh.finding</c>.</summary>
+    public const string SiadhFinding = "siadh.finding";
+
+    /// <summary>Phrase <c>siadh.next</c>.</summary>
+    public const string SiadhNext = "siadh.next";
+
+    /// <summary>Phrase <c>furst.computation</c>.</summary>
+    public const string FurstComputation = "furst.computation";
+
+    /// <summary>Phrase <c>furst.computation.no-potassium</c>.</summary>
+    public const string FurstComputationNoPotassium = "furst.computation.no-potassium";
+
+    /// <summary>Phrase <c>furst.meaning.unlikely</c>.</summary>
+    public const string FurstMeaningUnlikely = "furst.meaning.unlikely";
+
+    /// <summary>Phrase <c>furst.meaning.stricter</c>.</summary>
+    public const string FurstMeaningStricter = "furst.meaning.stricter";
+
+    /// <summary>Phrase <c>furst.meaning.usual</c>.</summary>
+    public const string FurstMeaningUsual = "furst.meaning.usual";
+
+    /// <summary>Phrase <c>furst.restriction</c>.</summary>
+    public const string FurstRestriction = "furst.restriction";
+
+    /// <summary>Phrase <c>furst.restriction.unknown</c>.</summary>
+    public const string FurstRestrictionUnknown = "furst.restriction.unknown";
+
+    /// <summary>Phrase <c>furst.step.incomplete</c>.</summary>
+    public const string FurstStepIncomplete = "furst.step.incomplete";
+
+    /// <summary>Phrase <c>furst.step</c>.</summary>
+    public const string FurstStep = "furst.step";
+
+    /// <summary>Phrase <c>furst.finding</c>.</summary>
+    public const string FurstFinding = "furst.finding";
+
+    /// <summary>Phrase <c>furst.next</c>.</summary>
+    public const string FurstNext = "furst.next";
 }

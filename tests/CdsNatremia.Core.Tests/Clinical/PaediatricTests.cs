@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Sodium;
@@ -22,11 +23,16 @@ public class PaediatricTests
     }
 
     [Fact]
-    public void Apply_ChildCautionIsTheFirstFinding()
+    public void Apply_ChildCautionIsTheFirstCautionOnTheShortCard()
     {
+        // A decision, not wording: the child caution leads the card's patient-specific cautions (added by the engine, so
+        // every card kind carries it) and the report keeps the full adult-guideline caveat.
         var card = SomeClinical.Assessment(SomeClinical.Woman(9, Some.Sodium(122, 2)));
-        var findings = card.Report.IndexOf("**Findings**", StringComparison.Ordinal);
-        Assert.Equal(findings, card.Report.IndexOf("**Findings**\n\n- **This patient is a child (9 years old, under 18)**", StringComparison.Ordinal));
+        var caution = card.Content!.Cautions[0];
+        Assert.Equal(FindingKind.PaediatricCautionShort, caution.Kind);
+        Assert.Equal(new NumberValue(9, 0), caution["age"]);
+        Assert.Contains("**Caution:** Child (9 years)", card.Detail, StringComparison.Ordinal);
+        Assert.Contains(card.Content.Steps, f => f.Kind == FindingKind.PaediatricCaution);
     }
 
     [Fact]

@@ -1,3 +1,6 @@
+using CdsNatremia.Core.Findings;
+using CdsNatremia.Core.Rendering;
+using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Tests.Support;
@@ -15,8 +18,10 @@ public class SetAsideInputsTests
     {
         var context = new DecisionContext(Some.Request(facts), new RuleOptions(), WorkupTestData.Knowledge);
         var criteria = SiadhChecklistRule.Evaluate(context, TonicityAssessment.From(context), UrineStudies.From(context));
-        return criteria.Single(c => c.Name.StartsWith(startsWith, StringComparison.Ordinal));
+        return criteria.Single(c => Said(c.Name).StartsWith(startsWith, StringComparison.Ordinal));
     }
+
+    private static string Said(Finding finding) => PhraseCatalogue.Default.Render(finding, TimeDisplay.Utc(Some.Now));
 
     private static PatientFacts Facts(params MedicationFact[] medications)
         => Some.Facts([.. WorkupTestData.Hypotonic()]) with { Medications = medications };
@@ -41,8 +46,9 @@ public class SetAsideInputsTests
         };
         var criterion = Criterion(Facts(unreadable), "No recent diuretic");
         Assert.Equal(CriterionStatus.CouldNotBeRead, criterion.Status);
-        Assert.Equal("unknown (could not be read)", criterion.StatusText);
-        Assert.Contains("Blood-pressure combination tablet", criterion.Data, StringComparison.Ordinal);
+        Assert.Equal(FindingKind.SiadhStatusCouldNotBeRead, criterion.StatusKind);
+        Assert.Equal(Certainty.CouldNotBeRead, criterion.Data.Certainty);
+        Assert.Equal(new TextValue("Blood-pressure combination tablet", Escape: true), criterion.Data["text"]);
     }
 
     [Fact]
@@ -77,7 +83,7 @@ public class SetAsideInputsTests
         var facts = Facts() with { SetAside = [new SetAsideItem("Observation/tsh-1", "TSH 2 mg", "unit 'mg' is not accepted", Analyte.Thyrotropin, Some.Now.AddHours(-3))] };
         var criterion = Criterion(facts, "Normal thyroid");
         Assert.Equal(CriterionStatus.CouldNotBeRead, criterion.Status);
-        Assert.Contains("Observation/tsh-1", criterion.Data, StringComparison.Ordinal);
+        Assert.Contains("Observation/tsh-1", Said(criterion.Data), StringComparison.Ordinal);
     }
 
     // 2014 European guideline: urine sodium > 30 mmol/L; a report of "< 20" decides "not above 30".
