@@ -503,4 +503,292 @@ public static partial class FindingKind
 
     /// <summary>Phrase <c>furst.next</c>.</summary>
     public const string FurstNext = "furst.next";
+
+    /// <summary>Phrase <c>hypertonic.glucose.steep</c>.</summary>
+    public const string HypertonicGlucoseSteep = "hypertonic.glucose.steep";
+
+    /// <summary>Phrase <c>hypertonic.glucose.step</c>.</summary>
+    public const string HypertonicGlucoseStep = "hypertonic.glucose.step";
+
+    /// <summary>Phrase <c>hypertonic.glucose.finding</c>.</summary>
+    public const string HypertonicGlucoseFinding = "hypertonic.glucose.finding";
+
+    /// <summary>Phrase <c>hypertonic.glucose.evidence</c>.</summary>
+    public const string HypertonicGlucoseEvidence = "hypertonic.glucose.evidence";
+
+    /// <summary>Phrase <c>hypertonic.glucose.not-hypotonic</c>.</summary>
+    public const string HypertonicGlucoseNotHypotonic = "hypertonic.glucose.not-hypotonic";
+
+    /// <summary>Phrase <c>hypertonic.glucose.next</c>.</summary>
+    public const string HypertonicGlucoseNext = "hypertonic.glucose.next";
+
+    /// <summary>Phrase <c>hypertonic.glucose.cause</c>.</summary>
+    public const string HypertonicGlucoseCause = "hypertonic.glucose.cause";
+
+    /// <summary>Phrase <c>hypertonic.glucose.action</c>.</summary>
+    public const string HypertonicGlucoseAction = "hypertonic.glucose.action";
+
+    /// <summary>Phrase <c>hypertonic.glucose.partial.next</c>.</summary>
+    public const string HypertonicGlucosePartialNext = "hypertonic.glucose.partial.next";
+
+    /// <summary>Phrase <c>pseudo.check.high</c>.</summary>
+    public const string PseudoCheckHigh = "pseudo.check.high";
+
+    /// <summary>Phrase <c>pseudo.check.not-high</c>.</summary>
+    public const string PseudoCheckNotHigh = "pseudo.check.not-high";
+
+    /// <summary>Phrase <c>pseudo.check.triglyceride-note</c>.</summary>
+    public const string PseudoCheckTriglycerideNote = "pseudo.check.triglyceride-note";
+
+    /// <summary>Phrase <c>pseudo.check.no-triglyceride</c>.</summary>
+    public const string PseudoCheckNoTriglyceride = "pseudo.check.no-triglyceride";
+
+    /// <summary>Phrase <c>pseudo.check.no-protein</c>.</summary>
+    public const string PseudoCheckNoProtein = "pseudo.check.no-protein";
+
+    /// <summary>Phrase <c>pseudo.clue.triglyceride</c>.</summary>
+    public const string PseudoClueTriglyceride = "pseudo.clue.triglyceride";
+
+    /// <summary>Phrase <c>pseudo.clue.protein</c>.</summary>
+    public const string PseudoClueProtein = "pseudo.clue.protein";
+
+    /// <summary>Phrase <c>pseudo.with</c>.</summary>
+    public const string PseudoWith = "pseudo.with";
+
+    /// <summary>Phrase <c>pseudo.step</c>.</summary>
+    public const string PseudoStep = "pseudo.step";
+
+    /// <summary>Phrase <c>pseudo.finding</c>.</summary>
+    public const string PseudoFinding = "pseudo.finding";
+
+    /// <summary>Phrase <c>pseudo.cause.artefact</c>.</summary>
+    public const string PseudoCauseArtefact = "pseudo.cause.artefact";
+
+    /// <summary>Phrase <c>pseudo.cause.isotonic</c>.</summary>
+    public const string PseudoCauseIsotonic = "pseudo.cause.isotonic";
+
+    /// <summary>Phrase <c>pseudo.direct.normal.step</c>.</summary>
+    public const string PseudoDirectNormalStep = "pseudo.direct.normal.step";
+
+    /// <summary>Phrase <c>pseudo.direct.low.step</c>.</summary>
+    public const string PseudoDirectLowStep = "pseudo.direct.low.step";
+
+    /// <summary>Phrase <c>pseudo.direct.low.action</c>.</summary>
+    public const string PseudoDirectLowAction = "pseudo.direct.low.action";
+
+    /// <summary>Phrase <c>pseudo.direct.order</c>.</summary>
+    public const string PseudoDirectOrder = "pseudo.direct.order";
+
+    /// <summary>Phrase <c>pseudo.next</c>.</summary>
+    public const string PseudoNext = "pseudo.next";
+
+    /// <summary>Phrase <c>pseudo.action</c>.</summary>
+    public const string PseudoAction = "pseudo.action";
+
+    /// <summary>Phrase <c>osmole.glucose.missing</c>.</summary>
+    public const string OsmoleGlucoseMissing = "osmole.glucose.missing";
+
+    /// <summary>Phrase <c>osmole.glucose.not-high</c>.</summary>
+    public const string OsmoleGlucoseNotHigh = "osmole.glucose.not-high";
+
+    /// <summary>Phrase <c>osmole.agent</c>.</summary>
+    public const string OsmoleAgent = "osmole.agent";
+
+    /// <summary>Phrase <c>osmole.agent-text</c>.</summary>
+    public const string OsmoleAgentText = "osmole.agent-text";
+
+    /// <summary>Phrase <c>osmole.named.none</c>.</summary>
+    public const string OsmoleNamedNone = "osmole.named.none";
+
+    /// <summary>Phrase <c>osmole.named</c>.</summary>
+    public const string OsmoleNamed = "osmole.named";
+
+    /// <summary>Phrase <c>osmole.osmolality.measured</c>.</summary>
+    public const string OsmoleOsmolalityMeasured = "osmole.osmolality.measured";
+
+    /// <summary>Phrase <c>osmole.osmolality.calculated</c>.</summary>
+    public const string OsmoleOsmolalityCalculated = "osmole.osmolality.calculated";
+
+    /// <summary>Phrase <c>osmole.osmolality.gap</c>.</summary>
+    public const string OsmoleOsmolalityGap = "osmole.osmolality.gap";
+
+    /// <summary>Phrase <c>osmole.step</c>.</summary>
+    public const string OsmoleStep = "osmole.step";
+
+    /// <summary>Phrase <c>osmole.finding.unnamed</c>.</summary>
+    public const string OsmoleFindingUnnamed = "osmole.finding.unnamed";
+
+    /// <summary>Phrase <c>osmole.finding.named</c>.</summary>
+    public const string OsmoleFindingNamed = "osmole.finding.named";
+
+    /// <summary>Phrase <c>osmole.cause</c>.</summary>
+    public const string OsmoleCause = "osmole.cause";
+
+    /// <summary>Phrase <c>osmole.next</c>.</summary>
+    public const string OsmoleNext = "osmole.next";
+
+    /// <summary>Phrase <c>osmole.action.unnamed</c>.</summary>
+    public const string OsmoleActionUnnamed = "osmole.action.unnamed";
+
+    /// <summary>Phrase <c>osmole.action.named</c>.</summary>
+    public const string OsmoleActionNamed = "osmole.action.named";
+
+    /// <summary>Phrase <c>osmole.action.isotonic</c>.</summary>
+    public const string OsmoleActionIsotonic = "osmole.action.isotonic";
+
+    /// <summary>Phrase <c>osmole.unknown.step</c>.</summary>
+    public const string OsmoleUnknownStep = "osmole.unknown.step";
+
+    /// <summary>Phrase <c>osmole.unknown.finding</c>.</summary>
+    public const string OsmoleUnknownFinding = "osmole.unknown.finding";
+
+    /// <summary>Phrase <c>osmole.unknown.action</c>.</summary>
+    public const string OsmoleUnknownAction = "osmole.unknown.action";
+
+    /// <summary>Phrase <c>tonicity.band.hypotonic</c>.</summary>
+    public const string TonicityBandHypotonic = "tonicity.band.hypotonic";
+
+    /// <summary>Phrase <c>tonicity.band.isotonic</c>.</summary>
+    public const string TonicityBandIsotonic = "tonicity.band.isotonic";
+
+    /// <summary>Phrase <c>tonicity.band.hypertonic</c>.</summary>
+    public const string TonicityBandHypertonic = "tonicity.band.hypertonic";
+
+    /// <summary>Phrase <c>tonicity.band.unknown</c>.</summary>
+    public const string TonicityBandUnknown = "tonicity.band.unknown";
+
+    /// <summary>Phrase <c>tonicity.edges</c>.</summary>
+    public const string TonicityEdges = "tonicity.edges";
+
+    /// <summary>Phrase <c>tonicity.measured.step</c>.</summary>
+    public const string TonicityMeasuredStep = "tonicity.measured.step";
+
+    /// <summary>Phrase <c>tonicity.measured.finding</c>.</summary>
+    public const string TonicityMeasuredFinding = "tonicity.measured.finding";
+
+    /// <summary>Phrase <c>tonicity.effective-short</c>.</summary>
+    public const string TonicityEffectiveShort = "tonicity.effective-short";
+
+    /// <summary>Phrase <c>tonicity.effective.no-urea</c>.</summary>
+    public const string TonicityEffectiveNoUrea = "tonicity.effective.no-urea";
+
+    /// <summary>Phrase <c>tonicity.effective</c>.</summary>
+    public const string TonicityEffective = "tonicity.effective";
+
+    /// <summary>Phrase <c>tonicity.calculated.step</c>.</summary>
+    public const string TonicityCalculatedStep = "tonicity.calculated.step";
+
+    /// <summary>Phrase <c>tonicity.calculated.finding</c>.</summary>
+    public const string TonicityCalculatedFinding = "tonicity.calculated.finding";
+
+    /// <summary>Phrase <c>tonicity.unknown.step</c>.</summary>
+    public const string TonicityUnknownStep = "tonicity.unknown.step";
+
+    /// <summary>Phrase <c>tonicity.unknown.finding</c>.</summary>
+    public const string TonicityUnknownFinding = "tonicity.unknown.finding";
+
+    /// <summary>Phrase <c>tonicity.no-urea.step</c>.</summary>
+    public const string TonicityNoUreaStep = "tonicity.no-urea.step";
+
+    /// <summary>Phrase <c>tonicity.gap.raised</c>.</summary>
+    public const string TonicityGapRaised = "tonicity.gap.raised";
+
+    /// <summary>Phrase <c>tonicity.gap.normal</c>.</summary>
+    public const string TonicityGapNormal = "tonicity.gap.normal";
+
+    /// <summary>Phrase <c>tonicity.gap.step</c>.</summary>
+    public const string TonicityGapStep = "tonicity.gap.step";
+
+    /// <summary>Phrase <c>tonicity.gap.finding</c>.</summary>
+    public const string TonicityGapFinding = "tonicity.gap.finding";
+
+    /// <summary>Phrase <c>tonicity.calc.effective-only</c>.</summary>
+    public const string TonicityCalcEffectiveOnly = "tonicity.calc.effective-only";
+
+    /// <summary>Phrase <c>tonicity.calc.us</c>.</summary>
+    public const string TonicityCalcUs = "tonicity.calc.us";
+
+    /// <summary>Phrase <c>tonicity.calc.si</c>.</summary>
+    public const string TonicityCalcSi = "tonicity.calc.si";
+
+    /// <summary>Phrase <c>bounded.value</c>.</summary>
+    public const string BoundedValue = "bounded.value";
+
+    /// <summary>Phrase <c>bounded.cite</c>.</summary>
+    public const string BoundedCite = "bounded.cite";
+
+    /// <summary>Phrase <c>bounded.finding</c>.</summary>
+    public const string BoundedFinding = "bounded.finding";
+
+    /// <summary>Phrase <c>bounded.finding.at-least</c>.</summary>
+    public const string BoundedFindingAtLeast = "bounded.finding.at-least";
+
+    /// <summary>Phrase <c>bounded.step</c>.</summary>
+    public const string BoundedStep = "bounded.step";
+
+    /// <summary>Phrase <c>bounded.step.more-severe</c>.</summary>
+    public const string BoundedStepMoreSevere = "bounded.step.more-severe";
+
+    /// <summary>Phrase <c>bounded.summary</c>.</summary>
+    public const string BoundedSummary = "bounded.summary";
+
+    /// <summary>Phrase <c>bounded.summary.at-least</c>.</summary>
+    public const string BoundedSummaryAtLeast = "bounded.summary.at-least";
+
+    /// <summary>Phrase <c>bounded.headline</c>.</summary>
+    public const string BoundedHeadline = "bounded.headline";
+
+    /// <summary>Phrase <c>bounded.headline.at-least</c>.</summary>
+    public const string BoundedHeadlineAtLeast = "bounded.headline.at-least";
+
+    /// <summary>Phrase <c>bounded.unplaced.finding</c>.</summary>
+    public const string BoundedUnplacedFinding = "bounded.unplaced.finding";
+
+    /// <summary>Phrase <c>bounded.unplaced.step</c>.</summary>
+    public const string BoundedUnplacedStep = "bounded.unplaced.step";
+
+    /// <summary>Phrase <c>bounded.unplaced.summary</c>.</summary>
+    public const string BoundedUnplacedSummary = "bounded.unplaced.summary";
+
+    /// <summary>Phrase <c>bounded.unplaced.headline</c>.</summary>
+    public const string BoundedUnplacedHeadline = "bounded.unplaced.headline";
+
+    /// <summary>Phrase <c>bounded.no-rate.step</c>.</summary>
+    public const string BoundedNoRateStep = "bounded.no-rate.step";
+
+    /// <summary>Phrase <c>bounded.older.step</c>.</summary>
+    public const string BoundedOlderStep = "bounded.older.step";
+
+    /// <summary>Phrase <c>bounded.next.measure</c>.</summary>
+    public const string BoundedNextMeasure = "bounded.next.measure";
+
+    /// <summary>Phrase <c>bounded.next.workup</c>.</summary>
+    public const string BoundedNextWorkup = "bounded.next.workup";
+
+    /// <summary>Phrase <c>bounded.order</c>.</summary>
+    public const string BoundedOrder = "bounded.order";
+
+    /// <summary>Phrase <c>unreadable.step</c>.</summary>
+    public const string UnreadableStep = "unreadable.step";
+
+    /// <summary>Phrase <c>unreadable.latest.step</c>.</summary>
+    public const string UnreadableLatestStep = "unreadable.latest.step";
+
+    /// <summary>Phrase <c>unreadable.earlier-low.step</c>.</summary>
+    public const string UnreadableEarlierLowStep = "unreadable.earlier-low.step";
+
+    /// <summary>Phrase <c>unreadable.finding</c>.</summary>
+    public const string UnreadableFinding = "unreadable.finding";
+
+    /// <summary>Phrase <c>unreadable.next</c>.</summary>
+    public const string UnreadableNext = "unreadable.next";
+
+    /// <summary>Phrase <c>unreadable.summary</c>.</summary>
+    public const string UnreadableSummary = "unreadable.summary";
+
+    /// <summary>Phrase <c>unreadable.headline</c>.</summary>
+    public const string UnreadableHeadline = "unreadable.headline";
+
+    /// <summary>Phrase <c>unreadable.order</c>.</summary>
+    public const string UnreadableOrder = "unreadable.order";
 }
