@@ -140,7 +140,7 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
                 Topic = "sodium-assessment",
                 RuleIds = [RuleId, "sodium.unusable"],
                 ResourcesUsed = [],
-                Suggestions = [LabOrders.AsSuggestion(LabOrders.SerumSodium("No usable sodium result was available."), recommended: false)],
+                Suggestions = [LabOrders.AsSuggestion(LabOrders.SerumSodium(LabOrders.Why(FindingKind.AssessmentUnusableOrder)), recommended: false)],
             },
         ];
     }

@@ -53,7 +53,7 @@ public sealed class Observed<T>
     public static Observed<T> Superseded(string reason) => new(FactState.Superseded, null, Guard.NotNull(reason, nameof(reason)), null);
 
     /// <summary>Only another patient's data was received: no value, id or time is kept.</summary>
-    public static Observed<T> NotThisPatient() => new(FactState.NotThisPatient, null, "the only data received for it was about another patient", null);
+    public static Observed<T> NotThisPatient() => new(FactState.NotThisPatient, null, Rendering.PhraseCatalogue.Default.Text("cite.observed.another-patient"), null);
 
     /// <summary>Looked for and not present.</summary>
     public static Observed<T> Absent(string lookedAt) => new(FactState.Absent, null, Guard.NotNull(lookedAt, nameof(lookedAt)), null);

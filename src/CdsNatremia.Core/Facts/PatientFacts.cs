@@ -105,11 +105,11 @@ public sealed record PatientFacts
             .FirstOrDefault();
         if (unreadable is not null)
         {
-            return Observed<LabResult>.Unreadable(Invariant.Format($"{name} {unreadable.Reference} was set aside: {unreadable.Reason}"));
+            return Observed<LabResult>.Unreadable(Rendering.PhraseCatalogue.Default.Render(Findings.Finding.Of("cite.observed.set-aside", Findings.Slot.Verbatim("name", name), Findings.Slot.Verbatim("reference", unreadable.Reference), Findings.Slot.Verbatim("reason", unreadable.Reason)), Text.TimeDisplay.Utc(DateTimeOffset.UnixEpoch)));
         }
 
         return SetAside.Any(s => s.Analyte == analyte && s.State == FactState.NotThisPatient)
             ? Observed<LabResult>.NotThisPatient()
-            : Observed<LabResult>.Absent("no " + name);
+            : Observed<LabResult>.Absent(Rendering.PhraseCatalogue.Default.Render(Findings.Finding.Of("cite.observed.absent", Findings.Slot.Verbatim("name", name)), Text.TimeDisplay.Utc(DateTimeOffset.UnixEpoch)));
     }
 }

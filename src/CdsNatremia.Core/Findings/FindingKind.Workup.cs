@@ -791,4 +791,7 @@ public static partial class FindingKind
 
     /// <summary>Phrase <c>unreadable.order</c>.</summary>
     public const string UnreadableOrder = "unreadable.order";
+
+    /// <summary>Phrase <c>assessment.unusable.order</c>.</summary>
+    public const string AssessmentUnusableOrder = "assessment.unusable.order";
 }

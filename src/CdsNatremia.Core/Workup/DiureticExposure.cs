@@ -72,7 +72,7 @@ public sealed record DiureticExposure(MedicationFact Medication, MedicationMatch
         if (stopped.FirstOrDefault() is { } undated)
         {
             return Observed<IReadOnlyList<DiureticExposure>>.Unreadable(
-                "a diuretic is recorded as stopped without a stop date, " + undated.Medication.Reference, undated.Medication.Text ?? undated.Match.Ingredient);
+                Phrases.Render(Finding.Of("cite.diuretic.stopped-undated", Slot.Verbatim("reference", undated.Medication.Reference)), Utc), undated.Medication.Text ?? undated.Match.Ingredient);
         }
 
         var recentStopped = RecentlyStopped.Find(facts, context.Request.Now, context.Options.DrugCause);
@@ -83,22 +83,28 @@ public sealed record DiureticExposure(MedicationFact Medication, MedicationMatch
             .ToList();
         if (unreadable.FirstOrDefault() is { } medicine)
         {
-            var more = unreadable.Count > 1 ? Invariant.Format($" (and {unreadable.Count - 1} more unreadable medicine record(s))") : string.Empty;
-            return Observed<IReadOnlyList<DiureticExposure>>.Unreadable($"{medicine.Reference}: {medicine.ProductUnreadable}{more}", medicine.Text);
+            var first = Phrases.Render(Finding.Of("cite.diuretic.unreadable", Slot.Verbatim("reference", medicine.Reference), Slot.Verbatim("reason", medicine.ProductUnreadable!)), Utc);
+            return Observed<IReadOnlyList<DiureticExposure>>.Unreadable(
+                unreadable.Count > 1 ? Phrases.Render(Finding.Of("cite.diuretic.more-unreadable", Slot.Verbatim("first", first), Slot.Count("count", unreadable.Count - 1)), Utc) : first,
+                medicine.Text);
         }
 
         var setAside = facts.SetAside.FirstOrDefault(i => i.State == FactState.Unreadable
             && (i.Reference.StartsWith("MedicationStatement/", StringComparison.Ordinal) || i.Reference.StartsWith("MedicationRequest/", StringComparison.Ordinal)));
         if (setAside is not null)
         {
-            return Observed<IReadOnlyList<DiureticExposure>>.Unreadable($"{setAside.Reference}: {setAside.Reason}", setAside.What);
+            return Observed<IReadOnlyList<DiureticExposure>>.Unreadable(Phrases.Render(Finding.Of("cite.diuretic.unreadable", Slot.Verbatim("reference", setAside.Reference), Slot.Verbatim("reason", setAside.Reason)), Utc), setAside.What);
         }
 
         return WorkupData.MedicationsUnreadable(facts)
-            ? Observed<IReadOnlyList<DiureticExposure>>.Unreadable("the medication list could not be obtained")
-            : Observed<IReadOnlyList<DiureticExposure>>.Absent(Invariant.Format(
-                $"no diuretic in the medication record, in use or stopped within {Invariant.Number(context.Options.DrugCause.RecentlyStoppedWithinDays)} days"));
+            ? Observed<IReadOnlyList<DiureticExposure>>.Unreadable(Phrases.Text("cite.diuretic.list-unavailable"))
+            : Observed<IReadOnlyList<DiureticExposure>>.Absent(Phrases.Render(
+                Finding.Of("cite.diuretic.none", Slot.Number("days", context.Options.DrugCause.RecentlyStoppedWithinDays)), Utc));
     }
+
+    private static Rendering.PhraseCatalogue Phrases => Rendering.PhraseCatalogue.Default;
+
+    private static TimeDisplay Utc => TimeDisplay.Utc(DateTimeOffset.UnixEpoch);
 
     /// <summary>True when the diuretic was (or may have been) in use at <paramref name="at"/>: started before it, or start unknown.</summary>
     public bool InUseAt(DateTimeOffset at) => Medication.Use == MedicationUse.Active && (Medication.StartedAt is not { } start || start <= at);

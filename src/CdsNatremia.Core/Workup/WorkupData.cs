@@ -37,13 +37,4 @@ public static class WorkupData
     /// <summary>A duration for card text: hours up to 72 h ("30 h"), whole days beyond ("98 days").</summary>
     public static string Duration(double hours)
         => Math.Abs(hours) <= 72 ? Text.ClinicalNumber.Rounded(hours, 1) + " h" : Invariant.Format($"{Math.Round(hours / 24):0} days");
-
-    /// <summary>"3.5 h after" / "2 h before" the reference time, for card text.</summary>
-    public static string Offset(DateTimeOffset value, DateTimeOffset reference)
-    {
-        var hours = (value - reference).TotalHours;
-        return Math.Abs(hours) < 0.05
-            ? "at the same time as"
-            : Invariant.Format($"{Duration(Math.Abs(hours))} {(hours > 0 ? "after" : "before")}");
-    }
 }
