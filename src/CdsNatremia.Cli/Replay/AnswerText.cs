@@ -38,6 +38,14 @@ internal sealed partial class AnswerText
     public static string? Report(JsonObject card)
         => (string?)card?["extension"]?["cdsnatremia-findings"]?["report"];
 
+    /// <summary>The findings (as data) of the assessment card, from its extension; empty when it carries none.</summary>
+    public IReadOnlyList<JsonObject> AssessmentFindings
+        => (Assessment?["extension"]?["cdsnatremia-findings"]?["findings"] as JsonArray ?? []).OfType<JsonObject>().ToList();
+
+    /// <summary>The first finding of the assessment card whose kind is one of <paramref name="kinds"/>, or null.</summary>
+    public JsonObject? AssessmentFinding(params string[] kinds)
+        => AssessmentFindings.FirstOrDefault(f => kinds.Contains((string?)f["kind"], StringComparer.Ordinal));
+
     /// <summary>True when <paramref name="words"/> appear in the cards (case-insensitive).</summary>
     public bool Mentions(string words) => All.Contains(words, StringComparison.OrdinalIgnoreCase);
 

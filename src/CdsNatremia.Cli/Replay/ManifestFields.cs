@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text.Json;
+using System.Text.Json.Nodes;
 using System.Text.RegularExpressions;
 
 namespace CdsNatremia.Cli.Replay;
@@ -25,7 +26,7 @@ internal static partial class ManifestFields
             [Card] = CardPresent,
             ["indicator"] = Indicator,
             ["sodiumBand"] = Band,
-            ["latestValidSodium"] = c => NumberAt(c, LatestSodium(), 0.05),
+            ["latestValidSodium"] = LatestValidSodium,
             ["mentions"] = c => Words(c, c.Expected.EnumerateArray().Select(e => e.ToString()).ToList()),
             ["tonicity"] = Tonicity,
             // Said of this patient: on the assessment card ("This patient is at high risk …") or on a rate card
@@ -33,7 +34,9 @@ internal static partial class ManifestFields
             ["highRiskOsmoticDemyelination"] = c => Statement(c,
                 c.Answer.All.Contains("patient is at high risk of osmotic demyelination", StringComparison.Ordinal)
                 || c.Answer.All.Contains("High risk of osmotic demyelination**", StringComparison.Ordinal)),
-            ["acute"] = c => Statement(c, c.Answer.All.Contains("**acute** hyponatremia", StringComparison.Ordinal)),
+            ["acute"] = c => Statement(c, c.Answer.AssessmentFindings.Count > 0
+                ? c.Answer.AssessmentFinding(AcuteKind) is not null
+                : c.Answer.All.Contains("**acute** hyponatremia", StringComparison.Ordinal)),
             ["glucoseCorrectedSodium"] = GlucoseCorrected,
             // The manifest gives the gap to the whole mOsm/kg; the card to a tenth.
             ["osmolalGap"] = c => NumberAt(c, OsmolalGap(), 0.5),
@@ -121,9 +124,33 @@ internal static partial class ManifestFields
         return (seen ?? "no assessment card", seen == expected);
     }
 
+    /// <summary>Finding kinds the comparisons read (the service's phrase catalogue keys).</summary>
+    private static readonly string[] HeadlineKinds = ["assessment.headline", "assessment.headline.not-hypotonic"];
+
+    private const string AcuteKind = "onset.acute.finding";
+
+    private static readonly string[] TonicityKinds = ["tonicity.measured.finding", "tonicity.calculated.finding", "tonicity.unknown.finding"];
+
+    /// <summary>The latest usable sodium: the assessment card's headline value when it carries findings, else its text.</summary>
+    private static (string, bool) LatestValidSodium(FieldCheck c)
+    {
+        if (!c.IsOrderHook && c.Answer.AssessmentFinding(HeadlineKinds) is { } headline && headline["values"]?["sodium"] is JsonValue value)
+        {
+            var seen = value.GetValue<double>();
+            return (seen.ToString(CultureInfo.InvariantCulture), Math.Abs(seen - c.Expected.GetDouble()) <= 0.05);
+        }
+
+        return NumberAt(c, LatestSodium(), 0.05);
+    }
+
     private static (string, bool) Band(FieldCheck c)
     {
         var expected = c.Expected.GetString() ?? string.Empty;
+        if (!c.IsOrderHook && c.Answer.AssessmentFinding(HeadlineKinds) is { } headline && (string?)headline["values"]?["band"] is { } band)
+        {
+            return (band, band == expected);
+        }
+
         if (!c.IsOrderHook)
         {
             var summary = (string?)c.Answer.Assessment?["summary"];
@@ -142,6 +169,13 @@ internal static partial class ManifestFields
 
     private static (string, bool) Tonicity(FieldCheck c)
     {
+        if (c.Answer.AssessmentFinding(TonicityKinds) is { } finding)
+        {
+            var kind = (string?)finding["values"]?["band"]?["kind"] ?? "tonicity.band.unknown";
+            var seen = kind[(kind.LastIndexOf('.') + 1)..];
+            return (seen, seen == c.Expected.GetString());
+        }
+
         var match = SerumTonicity().Match(c.Answer.All);
         return match.Success ? (match.Groups[1].Value, match.Groups[1].Value == c.Expected.GetString()) : ("not stated", false);
     }

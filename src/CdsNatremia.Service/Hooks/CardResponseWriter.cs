@@ -83,14 +83,7 @@ public sealed class CardResponseWriter
                 {
                     [FindingsExtension] = new JsonObject
                     {
-                        ["findings"] = new JsonArray(content.All()
-                            .Select(f => (JsonNode)new JsonObject
-                            {
-                                ["kind"] = f.Kind,
-                                ["certainty"] = Certainty(f.Certainty),
-                                ["evidence"] = new JsonArray(f.Evidence.Select(e => (JsonNode)JsonValue.Create(e)!).ToArray()),
-                            })
-                            .ToArray()),
+                        ["findings"] = new JsonArray(content.All().Select(f => (JsonNode)FindingJson.Of(f)).ToArray()),
                         ["report"] = card.Report,
                     },
                 };
@@ -151,15 +144,6 @@ public sealed class CardResponseWriter
 
     /// <summary>The key of our card extension (findings as data and the full report).</summary>
     public const string FindingsExtension = "cdsnatremia-findings";
-
-    private static string Certainty(Core.Findings.Certainty certainty) => certainty switch
-    {
-        Core.Findings.Certainty.Likely => "likely",
-        Core.Findings.Certainty.Possible => "possible",
-        Core.Findings.Certainty.Unknown => "unknown",
-        Core.Findings.Certainty.CouldNotBeRead => "could-not-be-read",
-        _ => "established",
-    };
 
     private static string Indicator(CardIndicator indicator) => indicator switch
     {

@@ -37,7 +37,8 @@ public sealed class CardReports : IDisposable
     {
         ArgumentNullException.ThrowIfNull(markdown);
         var expires = _time.GetUtcNow().AddHours(_options.KeepHours);
-        _cache.Set(id, new Entry(markdown, expires), new MemoryCacheEntryOptions { Size = 1, AbsoluteExpiration = expires });
+        // The cache evicts on its own clock; the expiry that counts is checked on the service's clock in Find.
+        _cache.Set(id, new Entry(markdown, expires), new MemoryCacheEntryOptions { Size = 1, AbsoluteExpirationRelativeToNow = TimeSpan.FromHours(_options.KeepHours) });
     }
 
     /// <summary>The report under <paramref name="id"/>, or null when unknown or expired.</summary>

@@ -98,7 +98,7 @@ public sealed class FetchingHookTests(ITestOutputHelper output) : IDisposable
 
         var cards = await HookCalls.CardsAsync(await HookCalls.PostAsync(factory.CreateClient(), ServiceId, body));
 
-        var detail = (string)cards.Single(c => (string?)c!["source"]!["topic"]!["code"] == "sodium-assessment")!.CardText();
+        var detail = (string)cards.Single(c => (string?)c!["source"]!["topic"]!["code"] == "sodium-assessment")!.AsObject().CardText();
         Assert.Contains("Data the service could not use", detail, StringComparison.Ordinal);
         Assert.Contains("medicationStatements", detail, StringComparison.Ordinal);
         Assert.Contains("HTTP 403", detail, StringComparison.Ordinal);

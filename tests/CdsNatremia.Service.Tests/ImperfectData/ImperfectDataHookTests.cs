@@ -108,7 +108,7 @@ public class ImperfectDataHookTests(NatremiaFactory factory) : IClassFixture<Nat
     [Fact]
     public async Task ChartReview_UnresolvedCombinationTablet_DiureticCriterionCouldNotBeReadNamedByItsText()
     {
-        var detail = (string)Assert.Single(await RunAsync("29"))!.CardText();
+        var detail = (string)Assert.Single(await RunAsync("29"))!.AsObject().CardText();
         Assert.Contains("No recent diuretic use: **unknown (could not be read)**", detail, StringComparison.Ordinal);
         Assert.Contains("Blood-pressure combination tablet (pharmacy record)", detail, StringComparison.Ordinal);
         Assert.DoesNotContain("consistent with SIADH", detail, StringComparison.Ordinal);
@@ -118,7 +118,7 @@ public class ImperfectDataHookTests(NatremiaFactory factory) : IClassFixture<Nat
     [Fact]
     public async Task ChartReview_ThiazideStoppedFourDaysAgo_RecentlyStoppedPossibleNeverLikely()
     {
-        var detail = (string)Assert.Single(await RunAsync("30"))!.CardText();
+        var detail = (string)Assert.Single(await RunAsync("30"))!.AsObject().CardText();
         Assert.Contains("No recent diuretic use: **not met**", detail, StringComparison.Ordinal);
         Assert.Contains("recently stopped", detail, StringComparison.Ordinal);
         Assert.Contains("**possible contributor**", detail, StringComparison.Ordinal);
@@ -142,7 +142,7 @@ public class ImperfectDataHookTests(NatremiaFactory factory) : IClassFixture<Nat
         Assert.Equal(HttpStatusCode.OK, response.StatusCode);
         var cards = await HookCalls.CardsAsync(response);
         var card = Assert.Single(cards, c => Topic(c) == "sodium-assessment");
-        var detail = (string)card!.CardText();
+        var detail = (string)card!.AsObject().CardText();
         Assert.Contains("124 mmol/L", (string)card["summary"]!, StringComparison.Ordinal);
         Assert.Contains("Sodium history not available", detail, StringComparison.Ordinal);
         Assert.Contains("**onset**", detail, StringComparison.Ordinal);
