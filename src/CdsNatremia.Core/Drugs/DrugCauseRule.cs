@@ -88,12 +88,13 @@ public sealed class DrugCauseRule : IAssessmentRule
                 .RestingOn([.. drug.Timing.Evidence.Evidence]));
         }
 
+        // Names only on the card: each drug's group is in its own reasoning step.
         var together = DrugCauseAnalysis.ActingTogether(implicated);
         if (together.Count > 0)
         {
             card.Findings.Add(Finding.Of(
                     FindingKind.DrugTogether,
-                    Slot.List("names", together.Select(d => (SlotValue)new PhraseValue(DrugText.WithGroup(d.Match))), TogetherSeparator))
+                    Slot.List("names", together.Select(d => (SlotValue)new TextValue(d.Match.Ingredient, Escape: true)), TogetherSeparator))
                 .With(Certainty.Possible)
                 .Weighted(Weights.Cause)
                 .RestingOn([.. together.Select(d => d.Medication.Reference)]));

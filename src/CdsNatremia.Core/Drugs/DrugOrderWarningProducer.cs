@@ -277,6 +277,7 @@ public sealed class DrugOrderWarningProducer : ICardProducer
             Slot.Number("sodium", reason.Latest!.Value),
             Slot.Text("band", thresholds.NameOf(thresholds.Classify(reason.Latest.Value))),
             Slot.Time("when", reason.Latest.EffectiveAt, TimeStyle.AgeAndTime),
+            Slot.Time("age", reason.Latest.EffectiveAt, TimeStyle.Age),
         ],
         OrderWarningTrigger.Falling =>
         [

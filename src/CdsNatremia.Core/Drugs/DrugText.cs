@@ -33,10 +33,6 @@ public static class DrugText
         return match.ByName ? Finding.Of(FindingKind.DrugMatchedByName) : Finding.Of(FindingKind.DrugMatchedByCode, Slot.Text("code", match.By));
     }
 
-    /// <summary>"hydrochlorothiazide (thiazide or thiazide-like diuretic)".</summary>
-    public static Finding WithGroup(MedicationMatch match)
-        => Finding.Of(FindingKind.DrugWithGroup, Name(match), Group(match.Set));
-
     /// <summary>
     /// What clinicians usually consider for a drug of this group: review the need, a lower-risk alternative, recheck
     /// sodium; with the group's own caution where stopping abruptly is a hazard (anti-epileptics: seizures;

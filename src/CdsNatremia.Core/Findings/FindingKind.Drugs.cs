@@ -21,9 +21,6 @@ public static partial class FindingKind
     /// <summary>How a drug matched: by code.</summary>
     public const string DrugMatchedByCode = "drug.matched.by-code";
 
-    /// <summary>A drug with its group.</summary>
-    public const string DrugWithGroup = "drug.with-group";
-
     /// <summary>A drug with its group, for a summary (group label starting with a consonant).</summary>
     public const string DrugNameWithGroupA = "drug.name-with-group.a";
 

@@ -68,7 +68,7 @@ public class DrugCauseRuleTests
         var together = Assert.Single(OfKind(card.Content!.Reasons, FindingKind.DrugTogether));
         Assert.Equal(2, Assert.IsType<ListValue>(together["names"]).Values.Count);
         Assert.Equal(FindingKind.DrugVerdictPossible, VerdictOf(card, "citalopram")); // citalopram: start unknown
-        Assert.Contains("**Medicines acting together**: hydrochlorothiazide (thiazide or thiazide-like diuretic) and citalopram", card.Report, StringComparison.Ordinal);
+        Assert.Contains("- **Medicines acting together**: hydrochlorothiazide and citalopram; their effects on sodium add up (common practice).", card.Detail, StringComparison.Ordinal);
     }
 
     [Fact]
