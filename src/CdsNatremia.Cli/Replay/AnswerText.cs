@@ -28,11 +28,15 @@ internal sealed partial class AnswerText
     public static string Text(JsonObject card)
     {
         ArgumentNullException.ThrowIfNull(card);
-        var parts = new List<string?> { (string?)card["summary"], (string?)card["detail"] };
+        var parts = new List<string?> { (string?)card["summary"], (string?)card["detail"], Report(card) };
         parts.AddRange((card["suggestions"] as JsonArray ?? []).OfType<JsonObject>().Select(s => (string?)s["label"]));
         parts.AddRange((card["links"] as JsonArray ?? []).OfType<JsonObject>().Select(l => (string?)l["label"]));
         return string.Join("\n", parts.Where(p => p is not null));
     }
+
+    /// <summary>The card's full report (Markdown) from its findings extension, or null.</summary>
+    public static string? Report(JsonObject card)
+        => (string?)card?["extension"]?["cdsnatremia-findings"]?["report"];
 
     /// <summary>True when <paramref name="words"/> appear in the cards (case-insensitive).</summary>
     public bool Mentions(string words) => All.Contains(words, StringComparison.OrdinalIgnoreCase);
@@ -55,7 +59,7 @@ internal sealed partial class AnswerText
     /// <summary>The "Data set aside" section of the cards' details (up to the next bold heading line), or empty.</summary>
     public string SetAsideSection()
     {
-        var sections = Cards.Select(c => (string?)c["detail"] ?? string.Empty)
+        var sections = Cards.Select(c => Report(c) ?? (string?)c["detail"] ?? string.Empty)
             .Select(d => SetAside().Match(d))
             .Where(m => m.Success)
             .Select(m => m.Groups[1].Value);

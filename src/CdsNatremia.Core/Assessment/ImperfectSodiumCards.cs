@@ -1,4 +1,5 @@
 using CdsNatremia.Core.Cards;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Sodium;
@@ -62,16 +63,20 @@ public static class ImperfectSodiumCards
             return null;
         }
 
-        var value = Invariant.Format($"{Bounds.Describe(bound)} mmol/L");
-        var cite = Invariant.Format($"Sodium {value} at {context.Display.Time(bound.EffectiveAt)} ({Markdown.Escape(bound.Reference)}; reported with a comparator: a bound, not a measurement)");
-        var findings = new List<string>();
-        var steps = new List<string>();
+        var value = Slot.Phrase("value", Finding.Of(FindingKind.BoundedValue, Slot.Verbatim("bound", Bounds.Describe(bound))));
+        var cite = Slot.Phrase("cite", Finding.Of(FindingKind.BoundedCite, value, Slot.Time("time", bound.EffectiveAt), Slot.Text("reference", bound.Reference)));
+        var when = Slot.Time("when", bound.EffectiveAt, TimeStyle.AgeAndTime);
+        var time = Slot.Time("time", bound.EffectiveAt);
+        var age = Slot.Time("age", bound.EffectiveAt, TimeStyle.Age);
+        var findings = new List<Finding>();
+        var steps = new List<Finding>();
         CardIndicator indicator;
-        string summary;
+        Finding summary;
+        Finding headline;
         if (band is { } placed)
         {
-            var name = thresholds.NameOf(placed);
-            var atLeast = moreSevereOpen ? "at least " : string.Empty;
+            var name = Slot.Text("band", thresholds.NameOf(placed));
+            var range = Slot.Text("range", thresholds.RangeOf(placed));
             indicator = placed switch
             {
                 SeverityBand.Profound => context.Options.Indicators.Profound,
@@ -83,49 +88,54 @@ public static class ImperfectSodiumCards
                 indicator = CardIndicator.Warning;
             }
 
-            findings.Add(Invariant.Format($"Newest sodium {value}: **{atLeast}{name} hyponatremia** ({thresholds.RangeOf(placed)})."));
-            steps.Add(Invariant.Format(
-                $"**Severity from a bound**: {cite}. Every value {Bounds.Describe(bound)} mmol/L is in the {name} band{(moreSevereOpen ? " or a more severe one" : string.Empty)} ({thresholds.RangeOf(placed)}; {thresholds.Source})."));
-            summary = Invariant.Format($"Sodium {value} ({atLeast}{name} hyponatremia, {context.Display.AgeAndTime(bound.EffectiveAt)}) — a bound: measure it, assess symptoms now.");
+            findings.Add(Finding.Of(moreSevereOpen ? FindingKind.BoundedFindingAtLeast : FindingKind.BoundedFinding, value, name, range).RestingOn(bound.Reference).Weighted(Weights.Culprit));
+            steps.Add(Finding.Of(
+                moreSevereOpen ? FindingKind.BoundedStepMoreSevere : FindingKind.BoundedStep,
+                cite,
+                Slot.Verbatim("bound", Bounds.Describe(bound)),
+                name,
+                range,
+                Slot.Verbatim("source", thresholds.Source)).RestingOn(bound.Reference));
+            summary = Finding.Of(moreSevereOpen ? FindingKind.BoundedSummaryAtLeast : FindingKind.BoundedSummary, value, name, when);
+            headline = Finding.Of(moreSevereOpen ? FindingKind.BoundedHeadlineAtLeast : FindingKind.BoundedHeadline, value, name, time, age).RestingOn(bound.Reference);
         }
         else
         {
             indicator = CardIndicator.Info;
-            findings.Add(Invariant.Format($"Newest sodium {value}: a bound that does not tell whether the sodium is low."));
-            steps.Add(Invariant.Format($"**Severity from a bound**: {cite}; the bound spans the normal range and the low bands, so no band can be given."));
-            summary = Invariant.Format($"Newest sodium is a bound ({value}) that cannot be placed; no assessment made — measure sodium.");
+            findings.Add(Finding.Of(FindingKind.BoundedUnplacedFinding, value).With(Certainty.Unknown).Weighted(Weights.Culprit));
+            steps.Add(Finding.Of(FindingKind.BoundedUnplacedStep, cite).With(Certainty.Unknown));
+            summary = Finding.Of(FindingKind.BoundedUnplacedSummary, value);
+            headline = Finding.Of(FindingKind.BoundedUnplacedHeadline, value, time, age).RestingOn(bound.Reference);
         }
 
-        steps.Add("**No rate from a bound**: a bound is not a value, so no rise, fall or correction rate is computed from it; the correction-rate watch uses measured results only.");
+        steps.Add(Finding.Of(FindingKind.BoundedNoRateStep));
         if (context.Sodium.Latest is { } older)
         {
-            steps.Add("**Latest measured sodium** (older than the bound): " + Cite.Result(older, context.Display) + ".");
+            steps.Add(Finding.Of(FindingKind.BoundedOlderStep, Slot.Result("result", older)).RestingOn(older.Reference));
         }
 
         if (context.Request.Facts.SodiumHistoryUnavailable is { } history)
         {
-            steps.Add(Rendering.PhraseCatalogue.Default.Render(HistoryStep(history), context.Display));
+            steps.Add(HistoryStep(history));
         }
 
-        var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Low sodium work-up** as of {context.Display.Time(context.Request.Now)}. Advisory only."))
-            .Bullets("Findings", findings)
-            .Numbered("Reasoning (with the data each step used)", steps)
-            .Bullets("What clinicians usually consider next",
-            [
-                "Measure the sodium again now (the laboratory can often dilute the sample to report a value), and assess for severe symptoms (vomiting, seizures, drowsiness, cardiorespiratory distress); severe symptoms are an emergency under local protocol.",
-                "The full work-up (tonicity, urine studies, causes) and the correction-rate watch need a measured value.",
-            ]);
-        CardFooter.Write(detail, context.Request.Facts, [thresholds.Source], context.Display);
+        var content = new CardContent
+        {
+            Summary = summary,
+            Headline = headline,
+            Reasons = findings,
+            Steps = steps,
+            NextSteps = [Finding.Of(FindingKind.BoundedNextMeasure), Finding.Of(FindingKind.BoundedNextWorkup)],
+            Sources = [thresholds.Source],
+        };
         return new Card
         {
-            Summary = Summary.Fit(summary),
+            Content = content,
             Indicator = CapForStaleness(context, bound, indicator),
-            Detail = detail.ToString(),
             Topic = "sodium-assessment",
             RuleIds = [producerRuleId, BoundedRuleId],
             ResourcesUsed = [bound.Reference],
-            Suggestions = [LabOrders.AsSuggestion(LabOrders.SerumSodium("The newest sodium is a bound, not a measurement; measure it."), recommended: true)],
+            Suggestions = [LabOrders.AsSuggestion(LabOrders.SerumSodium(LabOrders.Why(FindingKind.BoundedOrder)), recommended: true)],
             SelectionBehavior = SelectionBehavior.Any,
         };
     }
@@ -142,41 +152,43 @@ public static class ImperfectSodiumCards
             .OrderBy(r => r.Value)
             .FirstOrDefault();
         var reasons = unreadable.Select(s => Cite.SetAside(s, context.Display)).ToList();
-        var steps = new List<string>
+        var steps = new List<Finding>
         {
-            Invariant.Format($"**Newest sodium could not be used**: {unreadable.Count} sodium result(s) newer than the latest usable one were set aside: {string.Join("; ", reasons)}. A value outside physiological plausibility is never taken as the latest."),
-            "**Latest usable sodium**: " + Cite.Result(latestUsable, context.Display) + Invariant.Format($", in the normal range ({context.Thresholds.RangeOf(SeverityBand.Normal)}); the newest may differ."),
+            Finding.Of(FindingKind.UnreadableStep, Slot.Count("count", unreadable.Count), Slot.Verbatim("reasons", string.Join("; ", reasons))).With(Certainty.CouldNotBeRead),
+            Finding.Of(FindingKind.UnreadableLatestStep, Slot.Result("result", latestUsable), Slot.Text("range", context.Thresholds.RangeOf(SeverityBand.Normal))).RestingOn(latestUsable.Reference),
         };
         if (earlierLow is not null)
         {
-            steps.Add(Invariant.Format(
-                $"**Earlier low value**: {Cite.Result(earlierLow, context.Display)} within the {Invariant.Number(lookback)} h before it; the sodium was recently low, so the unreadable newest result matters more."));
+            steps.Add(Finding.Of(FindingKind.UnreadableEarlierLowStep, Slot.Result("result", earlierLow), Slot.Number("hours", lookback)).RestingOn(earlierLow.Reference));
         }
 
-        var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Sodium check** as of {context.Display.Time(context.Request.Now)}. Advisory only."))
-            .Bullets("Findings", ["The **newest sodium result could not be used** (see below); this is not a statement that the sodium is normal."])
-            .Numbered("Reasoning (with the data each step used)", steps)
-            .Bullets("What clinicians usually consider next", ["Check the newest result in the laboratory system and repeat the sodium."]);
-        CardFooter.Write(detail, context.Request.Facts, [context.Thresholds.Source], context.Display);
         var first = unreadable[0];
-        var summary = Invariant.Format($"Newest sodium could not be used ({ShortReason(first.Reason)}); last usable {Invariant.Number(latestUsable.Value)} mmol/L — recheck sodium.");
+        var reason = Slot.Text("reason", ShortReason(first.Reason));
+        var sodium = Slot.Number("sodium", latestUsable.Value);
+        var content = new CardContent
+        {
+            Summary = Finding.Of(FindingKind.UnreadableSummary, reason, sodium),
+            Headline = Finding.Of(FindingKind.UnreadableHeadline, reason, sodium, Slot.Time("time", latestUsable.EffectiveAt), Slot.Time("age", latestUsable.EffectiveAt, TimeStyle.Age)),
+            Reasons = [Finding.Of(FindingKind.UnreadableFinding).With(Certainty.CouldNotBeRead).Weighted(Weights.DataGap)],
+            Steps = steps,
+            NextSteps = [Finding.Of(FindingKind.UnreadableNext)],
+            Sources = [context.Thresholds.Source],
+        };
         return new Card
         {
-            Summary = Summary.Fit(summary),
+            Content = content,
             Indicator = earlierLow is null ? CardIndicator.Info : CardIndicator.Warning,
-            Detail = detail.ToString(),
             Topic = "sodium-assessment",
             RuleIds = [producerRuleId, UnreadableRuleId],
             ResourcesUsed = earlierLow is null ? [latestUsable.Reference] : [latestUsable.Reference, earlierLow.Reference],
-            Suggestions = [LabOrders.AsSuggestion(LabOrders.SerumSodium("The newest sodium could not be used; repeat it."), recommended: true)],
+            Suggestions = [LabOrders.AsSuggestion(LabOrders.SerumSodium(LabOrders.Why(FindingKind.UnreadableOrder)), recommended: true)],
             SelectionBehavior = SelectionBehavior.Any,
         };
     }
 
     /// <summary>The reasoning step when the sodium history could not be had: which checks could therefore not be made.</summary>
-    public static Findings.Finding HistoryStep(string reason)
-        => Findings.Finding.Of(Findings.FindingKind.HistoryUnavailableStep, Findings.Slot.Text("reason", reason));
+    public static Finding HistoryStep(string reason)
+        => Finding.Of(FindingKind.HistoryUnavailableStep, Slot.Text("reason", reason)).With(Certainty.Unknown);
 
     private static CardIndicator CapForStaleness(DecisionContext context, LabResult result, CardIndicator indicator)
         => (context.Request.Now - result.EffectiveAt).TotalHours > context.Sodium.StaleAfterHours && indicator > CardIndicator.Warning

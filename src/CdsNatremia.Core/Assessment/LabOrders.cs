@@ -10,6 +10,10 @@ namespace CdsNatremia.Core.Assessment;
 /// </summary>
 public static class LabOrders
 {
+    /// <summary>The reason a draft order gives, worded from the catalogue (reasons carry no times).</summary>
+    public static string Why(string kind, params Findings.Slot[] slots)
+        => Rendering.PhraseCatalogue.Default.Render(Findings.Finding.Of(kind, slots), Text.TimeDisplay.Utc(DateTimeOffset.UnixEpoch));
+
     /// <summary>Sodium [Moles/volume] in Serum or Plasma, LOINC 2951-2.</summary>
     public static LabOrderProposal SerumSodium(string reason, double? withinHours = null)
         => new("2951-2", Name(FindingKind.LabSerumSodium), reason, withinHours);

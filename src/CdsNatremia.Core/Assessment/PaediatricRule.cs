@@ -1,6 +1,8 @@
 using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Assessment;
 
 /// <summary>
@@ -29,10 +31,8 @@ public sealed class PaediatricRule : IAssessmentRule
         }
 
         card.RuleIds.Add(RuleId);
-        card.Findings.Insert(0, SafetyCautions.Paediatric(age, adultFrom));
-        card.Steps.Add(Invariant.Format(
-            $"**Age**: {age} years, under {adultFrom} (birth date from the Patient resource): the severity bands, the correction limits and the formulas used here are adult ones (the 2014 European guideline covers adults); children's thresholds, fluid volumes and limits follow paediatric protocols."));
-        card.NextSteps.Insert(0, "Follow the local paediatric protocol and seek paediatric advice; treat the adult figures on this card as a guide only.");
-        card.OfferSummaryAction(SummaryPriority, Invariant.Format($"child ({age} y): adult limits may not apply, follow paediatric protocol"));
+        card.Steps.Add(Finding.Of(FindingKind.PaediatricStep, Slot.Count("age", age), Slot.Count("adultFrom", adultFrom)));
+        card.NextSteps.Insert(0, Finding.Of(FindingKind.PaediatricNext));
+        card.OfferSummaryAction(SummaryPriority, Finding.Of(FindingKind.PaediatricAction, Slot.Count("age", age)));
     }
 }

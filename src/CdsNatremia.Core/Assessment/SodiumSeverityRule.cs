@@ -1,8 +1,8 @@
 using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Sodium;
-using CdsNatremia.Core.Text;
 
 namespace CdsNatremia.Core.Assessment;
 
@@ -35,17 +35,25 @@ public sealed class SodiumSeverityRule : IAssessmentRule
             _ => context.Options.Indicators.Mild,
         });
 
-        card.Findings.Add(Invariant.Format($"Latest usable sodium {Invariant.Number(latest.Value)} mmol/L: **{name} hyponatremia** ({thresholds.RangeOf(band)})."));
-        card.Steps.Add(Invariant.Format(
-            $"**Severity**: {Cite.Result(latest, context.Display)} is in the {name} band ({thresholds.RangeOf(band)}; {thresholds.Source})."));
+        card.Findings.Add(Finding.Of(
+            FindingKind.SeverityFinding,
+            Slot.Number("sodium", latest.Value),
+            Slot.Text("band", name),
+            Slot.Text("range", thresholds.RangeOf(band))).RestingOn(latest.Reference).Weighted(Weights.Stated));
+        card.Steps.Add(Finding.Of(
+            FindingKind.SeverityStep,
+            Slot.Result("result", latest),
+            Slot.Text("band", name),
+            Slot.Text("range", thresholds.RangeOf(band)),
+            Slot.Verbatim("source", thresholds.Source)).RestingOn(latest.Reference));
 
         var age = context.Sodium.LatestAgeHours ?? 0;
         if (context.Sodium.LatestIsStale)
         {
-            card.Steps.Add(Invariant.Format(
-                $"**Age of the result**: taken {ClinicalNumber.Rounded(age, 1)} h before this assessment, older than the {Invariant.Number(context.Sodium.StaleAfterHours)} h window: **stale**; today's sodium may differ."));
-            card.Suggest(LabOrders.AsSuggestion(LabOrders.SerumSodium("Latest sodium is stale; recheck before acting."), recommended: true));
-            card.OfferSummaryAction(50, "result is stale, recheck sodium");
+            card.Steps.Add(Finding.Of(FindingKind.SeverityStaleStep, Slot.Rounded("age", age, 1), Slot.Number("window", context.Sodium.StaleAfterHours)));
+            card.Cautions.Add(Finding.Of(FindingKind.SeverityStaleCaution, Slot.Rounded("age", age, 0)));
+            card.Suggest(LabOrders.AsSuggestion(LabOrders.SerumSodium(LabOrders.Why(FindingKind.SeverityStaleOrder)), recommended: true));
+            card.OfferSummaryAction(50, Finding.Of(FindingKind.SeverityStaleAction));
 
             // A stale result is a reason to recheck, not to interrupt: at most a warning (never critical).
             card.LimitTo(CardIndicator.Warning);
@@ -53,12 +61,12 @@ public sealed class SodiumSeverityRule : IAssessmentRule
 
         if (latest.IsPreliminary)
         {
-            card.Steps.Add("**Result status**: the latest sodium is **preliminary**; it is counted, but confirm the final result before acting on it.");
+            card.Steps.Add(Finding.Of(FindingKind.SeverityPreliminaryStep));
         }
 
         if (latest.IsWholeBlood)
         {
-            card.Steps.Add("**Specimen**: the latest sodium is a whole-blood (blood-gas or point-of-care) value; it can differ from laboratory serum sodium by a few mmol/L.");
+            card.Steps.Add(Finding.Of(FindingKind.SeverityWholeBloodStep));
         }
 
         var newerSetAside = context.Request.Facts.SetAside
@@ -66,25 +74,25 @@ public sealed class SodiumSeverityRule : IAssessmentRule
             .ToList();
         if (newerSetAside.Count > 0)
         {
-            card.Steps.Add(Invariant.Format(
-                $"**Newer results not used**: {newerSetAside.Count} sodium result(s) newer than this one were set aside (see *Data set aside*); this assessment rests on the older usable value."));
-            card.Suggest(LabOrders.AsSuggestion(LabOrders.SerumSodium("The newest sodium could not be used; repeat it."), recommended: true));
-            card.OfferSummaryAction(60, "newest result unusable, repeat sodium");
+            card.Steps.Add(Finding.Of(FindingKind.SeverityNewerUnusedStep, Slot.Count("count", newerSetAside.Count)));
+            card.Findings.Add(Finding.Of(FindingKind.SeverityNewerUnusedFinding, Slot.Count("count", newerSetAside.Count)).With(Certainty.CouldNotBeRead).Weighted(Weights.DataGap));
+            card.Suggest(LabOrders.AsSuggestion(LabOrders.SerumSodium(LabOrders.Why(FindingKind.SeverityNewerUnusedOrder)), recommended: true));
+            card.OfferSummaryAction(60, Finding.Of(FindingKind.SeverityNewerUnusedAction));
         }
 
         switch (band)
         {
             case SeverityBand.Profound:
-                card.NextSteps.Add("Assess for severe symptoms now (vomiting, seizures, drowsiness, cardiorespiratory distress); severe symptoms are an emergency under local protocol.");
-                card.OfferSummaryAction(40, "assess for severe symptoms now");
+                card.NextSteps.Add(Finding.Of(FindingKind.SeverityProfoundNext));
+                card.OfferSummaryAction(40, Finding.Of(FindingKind.SeverityProfoundAction));
                 break;
             case SeverityBand.Moderate:
-                card.NextSteps.Add("Assess symptoms and work up the cause; recheck sodium to see the trend.");
-                card.OfferSummaryAction(20, "assess symptoms and work up the cause");
+                card.NextSteps.Add(Finding.Of(FindingKind.SeverityModerateNext));
+                card.OfferSummaryAction(20, Finding.Of(FindingKind.SeverityModerateAction));
                 break;
             default:
-                card.NextSteps.Add("Review likely causes (including medicines) and recheck sodium to see the trend.");
-                card.OfferSummaryAction(10, "review causes and recheck");
+                card.NextSteps.Add(Finding.Of(FindingKind.SeverityMildNext));
+                card.OfferSummaryAction(10, Finding.Of(FindingKind.SeverityMildAction));
                 break;
         }
     }

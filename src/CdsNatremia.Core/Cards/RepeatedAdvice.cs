@@ -25,6 +25,7 @@ public static class RepeatedAdvice
                 Findings.Finding.Of(Findings.FindingKind.AlreadyReviewedSummary, Findings.Slot.Time("age", lastReviewedAt, Findings.TimeStyle.Age), Findings.Slot.Verbatim("summary", card.Summary)),
                 display)),
             Detail = note + "\n\n" + card.Detail,
+            Report = note + "\n\n" + card.Report,
         };
     }
 }

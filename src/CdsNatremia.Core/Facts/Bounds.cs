@@ -42,14 +42,16 @@ public static class Bounds
     public static string Describe(LabResult result)
     {
         Guard.NotNull(result, nameof(result));
-        var n = Invariant.Number(result.Value);
-        return result.Comparator switch
+        var key = result.Comparator switch
         {
-            ValueComparator.LessThan => "below " + n,
-            ValueComparator.LessOrEqual => "at or below " + n,
-            ValueComparator.GreaterThan => "above " + n,
-            ValueComparator.GreaterOrEqual => "at or above " + n,
-            _ => n,
+            ValueComparator.LessThan => "cite.bound.below",
+            ValueComparator.LessOrEqual => "cite.bound.at-or-below",
+            ValueComparator.GreaterThan => "cite.bound.above",
+            ValueComparator.GreaterOrEqual => "cite.bound.at-or-above",
+            _ => null,
         };
+        return key is null
+            ? Invariant.Number(result.Value)
+            : Rendering.PhraseCatalogue.Default.Render(Findings.Finding.Of(key, Findings.Slot.Number("value", result.Value)), Text.TimeDisplay.Utc(DateTimeOffset.UnixEpoch));
     }
 }

@@ -99,6 +99,10 @@ public sealed class Observed<T>
     /// <summary>"could not be read: {reason} ("{item text}")", Markdown-escaped as cards print it; null when the fact could be read.</summary>
     public string? CouldNotBeReadText
         => CouldNotBeRead
-            ? "could not be read: " + Markdown.Escape(Reason!) + (ItemText is { Length: > 0 } text ? " (\"" + Markdown.Escape(text) + "\")" : string.Empty)
+            ? Rendering.PhraseCatalogue.Default.Render(
+                ItemText is { Length: > 0 } text
+                    ? Findings.Finding.Of("cite.could-not-be-read.named", Findings.Slot.Text("reason", Reason!), Findings.Slot.Text("text", text))
+                    : Findings.Finding.Of("cite.could-not-be-read", Findings.Slot.Text("reason", Reason!)),
+                Text.TimeDisplay.Utc(DateTimeOffset.UnixEpoch))
             : null;
 }

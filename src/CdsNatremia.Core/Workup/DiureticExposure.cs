@@ -4,6 +4,8 @@ using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Knowledge;
 using CdsNatremia.Core.Text;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
 /// <summary>
@@ -102,15 +104,23 @@ public sealed record DiureticExposure(MedicationFact Medication, MedicationMatch
     public bool InUseAt(DateTimeOffset at) => Medication.Use == MedicationUse.Active && (Medication.StartedAt is not { } start || start <= at);
 
     /// <summary>"metolazone (thiazide or thiazide-like diuretic, MedicationStatement/s07-mtz, since 2026-02-24 00:00 UTC)".</summary>
-    public string Describe(TimeDisplay display)
+    public Finding Describe(TimeDisplay display)
     {
+        var drug = Slot.Text("drug", Match.Ingredient);
+        var set = Slot.Text("set", Match.Set.Label);
         if (Medication.Use == MedicationUse.Stopped)
         {
-            return $"{Markdown.Escape(Match.Ingredient)} ({Markdown.Escape(Match.Set.Label)}, recently stopped: {RecentlyStopped.When(Medication, display)})";
+            return Finding.Of(FindingKind.DiureticDescribeStopped, drug, set, Slot.Verbatim("when", RecentlyStopped.When(Medication, display))).RestingOn(Medication.Reference);
         }
 
-        var since = Medication.StartedAt is { } start ? "since " + display.Time(start) : "start time not recorded";
-        var use = Medication.Use == MedicationUse.Intended ? "intended, " : string.Empty;
-        return $"{Markdown.Escape(Match.Ingredient)} ({Markdown.Escape(Match.Set.Label)}, {use}{Markdown.Escape(Medication.Reference)}, {since})";
+        var since = Medication.StartedAt is { } start
+            ? Finding.Of(FindingKind.DiureticSince, Slot.Time("time", start))
+            : Finding.Of(FindingKind.DiureticSinceUnknown);
+        return Finding.Of(
+            Medication.Use == MedicationUse.Intended ? FindingKind.DiureticDescribeIntended : FindingKind.DiureticDescribe,
+            drug,
+            set,
+            Slot.Text("reference", Medication.Reference),
+            Slot.Phrase("since", since)).RestingOn(Medication.Reference);
     }
 }

@@ -2,6 +2,8 @@ using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Text;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
 /// <summary>What a Furst ratio implies for fluid restriction.</summary>
@@ -84,24 +86,23 @@ public sealed record FurstRatio(LabResult UrineSodium, LabResult? UrinePotassium
         return new FurstRatio(una, potassium, serum);
     }
 
-    /// <summary>The computation as a card prints it, with every input as used.</summary>
-    public string Computation()
+    /// <summary>The computation with every input as used.</summary>
+    public Finding Computation()
         => UrinePotassium is { } uk
-            ? Invariant.Format($"(urine sodium {Invariant.Number(UrineSodium.Value)} + urine potassium {Invariant.Number(uk.Value)}) / serum sodium {Invariant.Number(SerumSodium.Value)} = **{Invariant.Number(Value)}**")
-            : Invariant.Format($"urine sodium {Invariant.Number(UrineSodium.Value)} / serum sodium {Invariant.Number(SerumSodium.Value)} = **{Invariant.Number(Value)}** without urine potassium (not available), so the ratio is at least this");
+            ? Finding.Of(FindingKind.FurstComputation, Slot.Number("urineSodium", UrineSodium.Value), Slot.Number("urinePotassium", uk.Value), Slot.Number("serumSodium", SerumSodium.Value), Slot.Number("value", Value))
+            : Finding.Of(FindingKind.FurstComputationNoPotassium, Slot.Number("urineSodium", UrineSodium.Value), Slot.Number("serumSodium", SerumSodium.Value), Slot.Number("value", Value));
 
-    /// <summary>What the outlook means, in words.</summary>
-    public static string Meaning(FluidRestrictionOutlook outlook, WorkupOptions options)
+    /// <summary>What the outlook means.</summary>
+    public static Finding Meaning(FluidRestrictionOutlook outlook, WorkupOptions options)
     {
         Guard.NotNull(options, nameof(options));
+        var above = Slot.Number("above", options.FurstRestrictionUnlikelyAbove);
+        var from = Slot.Number("from", options.FurstStricterRestrictionFrom);
         return outlook switch
         {
-            FluidRestrictionOutlook.RestrictionUnlikelyToWork => Invariant.Format(
-                $"above {Invariant.Number(options.FurstRestrictionUnlikelyAbove)}: **fluid restriction is unlikely to work** (the kidney excretes no free water), so other treatment is usually needed, chosen with a senior clinician under local protocol"),
-            FluidRestrictionOutlook.StricterRestriction => Invariant.Format(
-                $"from {Invariant.Number(options.FurstStricterRestrictionFrom)} to {Invariant.Number(options.FurstRestrictionUnlikelyAbove)}: a **stricter fluid restriction** than usual is needed, and it may still fail"),
-            _ => Invariant.Format(
-                $"below {Invariant.Number(options.FurstStricterRestrictionFrom)}: the **usual fluid restriction** can be expected to work"),
+            FluidRestrictionOutlook.RestrictionUnlikelyToWork => Finding.Of(FindingKind.FurstMeaningUnlikely, above),
+            FluidRestrictionOutlook.StricterRestriction => Finding.Of(FindingKind.FurstMeaningStricter, from, above),
+            _ => Finding.Of(FindingKind.FurstMeaningUsual, from),
         };
     }
 
@@ -109,12 +110,12 @@ public sealed record FurstRatio(LabResult UrineSodium, LabResult? UrinePotassium
     /// The fluid-restriction clause of the SIADH advice: what the Furst ratio says when it can be computed, otherwise that
     /// restriction is the usual first step unless the urine electrolytes show it cannot work.
     /// </summary>
-    public static string RestrictionClause(DecisionContext context)
+    public static Finding RestrictionClause(DecisionContext context)
     {
         Guard.NotNull(context, nameof(context));
         var options = context.Options.Workup;
         return For(context) is { } ratio && ratio.Outlook(options) is { } outlook
-            ? Invariant.Format($"the Furst ratio of {Invariant.Number(ratio.Value)} says whether fluid restriction will work ({Meaning(outlook, options)})")
-            : "fluid restriction is the usual first step unless the urine electrolytes show it cannot work (the Furst ratio needs urine sodium and potassium)";
+            ? Finding.Of(FindingKind.FurstRestriction, Slot.Number("value", ratio.Value), Slot.Phrase("meaning", Meaning(outlook, options)))
+            : Finding.Of(FindingKind.FurstRestrictionUnknown);
     }
 }

@@ -1,6 +1,8 @@
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
 /// <summary>
@@ -33,16 +35,18 @@ public sealed class FurstRatioRule : IAssessmentRule
         }
 
         var outlook = ratio.Outlook(options);
+        var computation = Slot.Phrase("computation", ratio.Computation());
+        Finding Resting(Finding f) => ratio.UrinePotassium is { } uk ? f.RestingOn(ratio.UrineSodium.Reference, uk.Reference) : f.RestingOn(ratio.UrineSodium.Reference);
         if (outlook is not { } known)
         {
-            card.Steps.Add(Invariant.Format(
-                $"**Furst ratio** (urine-to-serum electrolytes, Furst et al. 2000): {ratio.Computation()}; urine potassium is needed to say whether fluid restriction will work."));
+            card.Steps.Add(Resting(Finding.Of(FindingKind.FurstStepIncomplete, computation)));
             return;
         }
 
-        var meaning = FurstRatio.Meaning(known, options);
-        card.Steps.Add(Invariant.Format($"**Furst ratio** (urine-to-serum electrolytes, Furst et al. 2000): {ratio.Computation()}; {meaning}."));
-        card.Findings.Add(Invariant.Format($"Furst ratio {Invariant.Number(ratio.Value)}: {meaning}."));
-        card.NextSteps.Add(Invariant.Format($"Fluid restriction, if the cause calls for it (e.g. SIADH): Furst ratio {Invariant.Number(ratio.Value)}, {meaning}."));
+        var meaning = Slot.Phrase("meaning", FurstRatio.Meaning(known, options));
+        var value = Slot.Number("value", ratio.Value);
+        card.Steps.Add(Resting(Finding.Of(FindingKind.FurstStep, computation, meaning)));
+        card.Findings.Add(Resting(Finding.Of(FindingKind.FurstFinding, value, meaning)).Weighted(known == FluidRestrictionOutlook.RestrictionUnlikelyToWork ? Weights.Cause + 5 : Weights.Cause - 5));
+        card.NextSteps.Add(Finding.Of(FindingKind.FurstNext, value, meaning));
     }
 }

@@ -4,6 +4,8 @@ using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
 /// <summary>
@@ -41,18 +43,17 @@ public sealed class LowCortisolRule : IAssessmentRule
             return;
         }
 
-        var basis = cortisol.ReferenceLow is null ? "the default lower limit, from memory" : "the laboratory's lower limit";
+        var basis = Finding.Of(cortisol.ReferenceLow is null ? FindingKind.CortisolBasisDefault : FindingKind.CortisolBasisLaboratory);
         card.RuleIds.Add(RuleId);
         card.Raise(CardIndicator.Warning);
         card.ResourcesUsed.Add(cortisol.Reference);
         card.Sources.Add(WorkupSources.European2014);
-        card.Findings.Add(Invariant.Format(
-            $"**Low cortisol** ({Cite.Result(cortisol, context.Display)}, below {basis} of {Invariant.Number(low)} nmol/L): **adrenal insufficiency must be considered urgently**; it is a cause of low sodium in its own right and can be life-threatening."));
-        card.Steps.Add(Invariant.Format(
-            $"**Cortisol**: {Cite.Result(cortisol, context.Display)} is below {Invariant.Number(low)} nmol/L ({basis}): glucocorticoid deficiency gives an SIADH-like picture and must be treated as possible adrenal insufficiency until shown otherwise (common practice)."));
-        card.Differential.Add("Adrenal insufficiency (glucocorticoid deficiency; with mineralocorticoid deficiency too in primary adrenal failure).");
-        card.NextSteps.Add("Assess urgently for adrenal insufficiency (blood pressure, volume status, symptoms) and seek senior or endocrine advice at once, under local protocol.");
-        card.NextSteps.Add("Replacing the glucocorticoid restores the kidney's free-water excretion and **can raise sodium quickly**: check sodium often once it is started and keep within the correction limits (from memory).");
-        card.OfferSummaryAction(SummaryPriority, "low cortisol: consider adrenal insufficiency urgently");
+        Slot[] slots = [Slot.Result("result", cortisol), Slot.Phrase("basis", basis), Slot.Number("low", low)];
+        card.Findings.Add(Finding.Of(FindingKind.CortisolFinding, slots).RestingOn(cortisol.Reference).Weighted(Weights.Urgent));
+        card.Steps.Add(Finding.Of(FindingKind.CortisolStep, slots).RestingOn(cortisol.Reference));
+        card.Differential.Add(Finding.Of(FindingKind.CortisolCause).With(Certainty.Possible));
+        card.NextSteps.Insert(0, Finding.Of(FindingKind.CortisolNext));
+        card.NextSteps.Add(Finding.Of(FindingKind.CortisolNextReplacement));
+        card.OfferSummaryAction(SummaryPriority, Finding.Of(FindingKind.CortisolAction));
     }
 }

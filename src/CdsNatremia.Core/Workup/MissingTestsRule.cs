@@ -3,6 +3,8 @@ using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
 /// <summary>
@@ -24,23 +26,23 @@ public sealed class MissingTestsRule : IAssessmentRule
         var t = TonicityAssessment.From(context);
         var urine = UrineStudies.From(context);
         var facts = context.Request.Facts;
-        var hours = Invariant.Number(options.PairedWithinHours);
-        var missing = new List<string>();
+        var hours = Slot.Number("hours", options.PairedWithinHours);
+        var missing = new List<SlotValue>();
 
         void Offer(string name, LabOrderProposal proposal, bool recommended)
         {
             card.Suggest(LabOrders.AsSuggestion(proposal, recommended));
-            missing.Add(name);
+            missing.Add(new PhraseValue(Finding.Of(name)));
         }
 
         if (t.Measured is null)
         {
-            Offer("serum osmolality", LabOrders.SerumOsmolality(Invariant.Format($"No measured serum osmolality within {hours} h of the low sodium; it shows whether the hyponatremia is hypotonic.")), recommended: true);
+            Offer(FindingKind.MissingSerumOsmolality, LabOrders.SerumOsmolality(LabOrders.Why(FindingKind.MissingSerumOsmolalityOrder, hours)), recommended: true);
         }
 
         if (t.Glucose is null)
         {
-            Offer("glucose", LabOrders.Glucose(Invariant.Format($"No glucose within {hours} h of the low sodium; hyperglycaemia lowers sodium without water excess.")), recommended: true);
+            Offer(FindingKind.MissingGlucose, LabOrders.Glucose(LabOrders.Why(FindingKind.MissingGlucoseOrder, hours)), recommended: true);
         }
 
         var possiblyHypotonic = t.Band is Tonicity.Hypotonic or Tonicity.Unknown;
@@ -48,12 +50,12 @@ public sealed class MissingTestsRule : IAssessmentRule
         {
             if (urine.Osmolality is null)
             {
-                Offer("urine osmolality", LabOrders.UrineOsmolality("Urine osmolality separates excess water intake (≤ 100 mOsm/kg) from vasopressin-driven water retention."), recommended: true);
+                Offer(FindingKind.MissingUrineOsmolality, LabOrders.UrineOsmolality(LabOrders.Why(FindingKind.MissingUrineOsmolalityOrder)), recommended: true);
             }
 
             if (urine.Sodium is null && !urine.IsDilute)
             {
-                Offer("urine sodium", LabOrders.UrineSodium("Urine sodium separates low effective arterial blood volume (≤ 30 mmol/L) from renal sodium loss or SIADH."), recommended: true);
+                Offer(FindingKind.MissingUrineSodium, LabOrders.UrineSodium(LabOrders.Why(FindingKind.MissingUrineSodiumOrder)), recommended: true);
             }
 
             // TSH and cortisol decide the SIADH criteria; recommended once the urine points that way (concentrated, sodium > 30).
@@ -61,12 +63,12 @@ public sealed class MissingTestsRule : IAssessmentRule
             var since = context.Request.Now.AddDays(-options.EndocrineTestMaxAgeDays);
             if (WorkupData.NewestSince(facts, Analyte.Thyrotropin, since) is null && !urine.IsDilute)
             {
-                Offer("TSH", LabOrders.Thyrotropin("Hypothyroidism must be excluded before SIADH is diagnosed."), recommended: siadhPicture);
+                Offer(FindingKind.MissingTsh, LabOrders.Thyrotropin(LabOrders.Why(FindingKind.MissingTshOrder)), recommended: siadhPicture);
             }
 
             if (WorkupData.NewestSince(facts, Analyte.Cortisol, since) is null && !urine.IsDilute)
             {
-                Offer("cortisol", LabOrders.Cortisol("Adrenal insufficiency must be excluded before SIADH is diagnosed."), recommended: siadhPicture);
+                Offer(FindingKind.MissingCortisol, LabOrders.Cortisol(LabOrders.Why(FindingKind.MissingCortisolOrder)), recommended: siadhPicture);
             }
         }
 
@@ -75,12 +77,12 @@ public sealed class MissingTestsRule : IAssessmentRule
             var at = t.Sodium.EffectiveAt;
             if (WorkupData.Paired(facts, Analyte.Triglyceride, at, options.PairedWithinHours) is null)
             {
-                Offer("triglyceride", LabOrders.Triglyceride("Normal osmolality with a low sodium: very high triglycerides cause pseudohyponatremia."), recommended: false);
+                Offer(FindingKind.MissingTriglyceride, LabOrders.Triglyceride(LabOrders.Why(FindingKind.MissingTriglycerideOrder)), recommended: false);
             }
 
             if (WorkupData.Paired(facts, Analyte.TotalProtein, at, options.PairedWithinHours) is null)
             {
-                Offer("total protein", LabOrders.TotalProtein("Normal osmolality with a low sodium: very high protein (paraprotein) causes pseudohyponatremia."), recommended: false);
+                Offer(FindingKind.MissingTotalProtein, LabOrders.TotalProtein(LabOrders.Why(FindingKind.MissingTotalProteinOrder)), recommended: false);
             }
         }
 
@@ -90,7 +92,8 @@ public sealed class MissingTestsRule : IAssessmentRule
         }
 
         card.RuleIds.Add(RuleId);
-        var labsNote = facts.Unavailable.ContainsKey("labs") ? " (the laboratory results could not all be read, so some may exist)" : string.Empty;
-        card.NextSteps.Add("Complete the work-up" + labsNote + ": " + string.Join("; ", missing) + " (offered as draft orders below).");
+        var tests = Slot.List("tests", missing, "; ");
+        card.NextSteps.Add(Finding.Of(facts.Unavailable.ContainsKey("labs") ? FindingKind.MissingNextLabsUnreadable : FindingKind.MissingNext, tests));
+        card.Findings.Add(Finding.Of(FindingKind.MissingFinding, Slot.List("tests", missing)).With(Certainty.Unknown).Weighted(Weights.Missing));
     }
 }

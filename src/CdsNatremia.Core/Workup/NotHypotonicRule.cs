@@ -3,6 +3,8 @@ using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Text;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
 /// <summary>
@@ -65,37 +67,53 @@ public sealed class NotHypotonicRule : IAssessmentRule
 
     private static void GlucoseCorrection(TonicityAssessment t, WorkupOptions options, AssessmentBuilder card, TimeDisplay display)
     {
+        _ = display;
         var mgPerDl = t.GlucoseMgPerDl!.Value;
         var na = t.Sodium.Value;
         var katz = Math.Round(OsmolalityFormulas.KatzCorrectedSodium(na, mgPerDl), 1);
         var hillier = Math.Round(OsmolalityFormulas.HillierCorrectedSodium(na, mgPerDl), 1);
         var chosen = options.GlucoseCorrection == GlucoseCorrectionMethod.Katz ? katz : hillier;
-        var chosenName = options.GlucoseCorrection == GlucoseCorrectionMethod.Katz ? "Katz" : "Hillier";
+        var method = Slot.Verbatim("method", options.GlucoseCorrection == GlucoseCorrectionMethod.Katz ? "Katz" : "Hillier");
         card.Sources.Add(WorkupSources.Katz);
         card.Sources.Add(WorkupSources.Hillier);
         card.ResourcesUsed.Add(t.Glucose!.Reference);
 
         var steep = mgPerDl > OsmolalityFormulas.HillierSteepAboveMgPerDl
-            ? Invariant.Format(
-                $" Above {Invariant.Number(OsmolalityFormulas.HillierSteepAboveMgPerDl)} mg/dL Hillier et al. found the fall steeper (about {Invariant.Number(OsmolalityFormulas.HillierSteepPer100MgPerDl)} mmol/L per 100 mg/dL); applied to the glucose above {Invariant.Number(OsmolalityFormulas.HillierSteepAboveMgPerDl)} mg/dL it gives {Invariant.Number(Math.Round(OsmolalityFormulas.HillierSteepCorrectedSodium(na, mgPerDl), 1))} mmol/L, so the true value may be higher still.")
-            : string.Empty;
-        card.Steps.Add(Invariant.Format(
-            $"**Glucose-corrected sodium**: {Cite.Result(t.Glucose, display)} = {Invariant.Number(mgPerDl)} mg/dL. Katz (1.6 mmol/L per 100 mg/dL above 100): {Invariant.Number(na)} + 1.6 × ({Invariant.Number(mgPerDl)} − 100)/100 = **{Invariant.Number(katz)} mmol/L**. Hillier (2.4 per 100 mg/dL above 100): **{Invariant.Number(hillier)} mmol/L**.{steep} This service uses {chosenName} (configured)."));
-        card.Findings.Add(Invariant.Format($"Glucose {Invariant.Number(t.Glucose.Value)} mmol/L ({Invariant.Number(mgPerDl)} mg/dL): glucose-corrected sodium {Invariant.Number(katz)} (Katz) to {Invariant.Number(hillier)} mmol/L (Hillier)."));
+            ? Slot.Phrase("steep", Finding.Of(
+                FindingKind.HypertonicGlucoseSteep,
+                Slot.Number("above", OsmolalityFormulas.HillierSteepAboveMgPerDl),
+                Slot.Number("per100", OsmolalityFormulas.HillierSteepPer100MgPerDl),
+                Slot.Number("steep", Math.Round(OsmolalityFormulas.HillierSteepCorrectedSodium(na, mgPerDl), 1))))
+            : Slot.Verbatim("steep", string.Empty);
+        var glucose = t.Glucose;
+        card.Steps.Add(Finding.Of(
+            FindingKind.HypertonicGlucoseStep,
+            Slot.Result("glucose", glucose),
+            Slot.Number("mgPerDl", mgPerDl),
+            Slot.Number("sodium", na),
+            Slot.Number("katz", katz),
+            Slot.Number("hillier", hillier),
+            steep,
+            method).RestingOn(glucose.Reference));
+        card.Findings.Add(Finding.Of(
+            FindingKind.HypertonicGlucoseFinding,
+            Slot.Number("glucose", glucose.Value),
+            Slot.Number("mgPerDl", mgPerDl),
+            Slot.Number("katz", katz),
+            Slot.Number("hillier", hillier)).RestingOn(glucose.Reference).Weighted(Weights.Culprit - 1));
 
+        var corrected = Slot.Number("corrected", chosen);
         if (t.Band == Tonicity.Hypertonic)
         {
-            card.MarkNotHypotonic(Invariant.Format($"glucose {ClinicalNumber.Rounded(t.Glucose.Value, 1)} mmol/L"));
-            card.Findings.Insert(0, "This is **not hypotonic hyponatremia**: glucose holds water outside the cells and dilutes the sodium. The correction limits of hypotonic hyponatremia do not apply to this dilution.");
-            card.NextSteps.Add(Invariant.Format(
-                $"Treat the hyperglycaemia and any volume deficit rather than the sodium (no treatment for the dilution itself); the sodium rises as glucose falls, towards the corrected value of about {Invariant.Number(chosen)} mmol/L, so recheck sodium and glucose together."));
-            card.Differential.Add("Hyperglycaemia (translocational, hypertonic hyponatremia).");
-            card.OfferSummaryAction(SummaryPriority, Invariant.Format($"corrected sodium {Invariant.Number(chosen)} mmol/L ({chosenName})"));
+            card.MarkNotHypotonic(Finding.Of(FindingKind.HypertonicGlucoseEvidence, Slot.Rounded("glucose", glucose.Value, 1)));
+            card.Findings.Insert(0, Finding.Of(FindingKind.HypertonicGlucoseNotHypotonic).Weighted(Weights.Culprit));
+            card.NextSteps.Insert(0, Finding.Of(FindingKind.HypertonicGlucoseNext, corrected));
+            card.Differential.Add(Finding.Of(FindingKind.HypertonicGlucoseCause).With(Certainty.Likely));
+            card.OfferSummaryAction(SummaryPriority, Finding.Of(FindingKind.HypertonicGlucoseAction, corrected, method));
         }
         else
         {
-            card.NextSteps.Add(Invariant.Format(
-                $"Part of the fall is from glucose; judge the severity on the corrected sodium of about {Invariant.Number(chosen)} mmol/L ({chosenName}) as well as the measured value."));
+            card.NextSteps.Add(Finding.Of(FindingKind.HypertonicGlucosePartialNext, corrected, method));
         }
     }
 
@@ -107,44 +125,40 @@ public sealed class NotHypotonicRule : IAssessmentRule
         var protein = WorkupData.Paired(facts, Analyte.TotalProtein, at, options.PairedWithinHours);
         card.Sources.Add(WorkupSources.CommonPractice);
 
-        var clues = new List<string>();
-        var checks = new List<string>();
-        if (triglyceride is not null)
+        var clues = new List<SlotValue>();
+        var checks = new List<SlotValue>();
+        void Check(LabResult? result, double threshold, string unit, Slot note, string clueKind, string missingKind)
         {
-            card.ResourcesUsed.Add(triglyceride.Reference);
-            var high = triglyceride.Value >= options.HighTriglycerideFrom;
-            checks.Add(Invariant.Format($"{Cite.Result(triglyceride, context.Display)}: {(high ? "**very high**" : "not high enough to explain it")} (threshold {Invariant.Number(options.HighTriglycerideFrom)} mmol/L, about 1000 mg/dL: from memory)"));
+            if (result is null)
+            {
+                checks.Add(new PhraseValue(Finding.Of(missingKind).With(Certainty.Unknown)));
+                return;
+            }
+
+            card.ResourcesUsed.Add(result.Reference);
+            var high = result.Value >= threshold;
+            checks.Add(new PhraseValue(Finding.Of(
+                high ? FindingKind.PseudoCheckHigh : FindingKind.PseudoCheckNotHigh,
+                Slot.Result("result", result),
+                Slot.Number("threshold", threshold),
+                Slot.Verbatim("unit", unit),
+                note).RestingOn(result.Reference)));
             if (high)
             {
-                clues.Add("very high triglycerides");
+                clues.Add(new PhraseValue(Finding.Of(clueKind)));
             }
         }
-        else
-        {
-            checks.Add("triglyceride not available");
-        }
 
-        if (protein is not null)
-        {
-            card.ResourcesUsed.Add(protein.Reference);
-            var high = protein.Value >= options.HighTotalProteinFrom;
-            checks.Add(Invariant.Format($"{Cite.Result(protein, context.Display)}: {(high ? "**very high**" : "not high enough to explain it")} (threshold {Invariant.Number(options.HighTotalProteinFrom)} g/L: from memory)"));
-            if (high)
-            {
-                clues.Add("very high total protein");
-            }
-        }
-        else
-        {
-            checks.Add("total protein not available");
-        }
+        Check(triglyceride, options.HighTriglycerideFrom, "mmol/L", Slot.Phrase("note", Finding.Of(FindingKind.PseudoCheckTriglycerideNote)), FindingKind.PseudoClueTriglyceride, FindingKind.PseudoCheckNoTriglyceride);
+        Check(protein, options.HighTotalProteinFrom, "g/L", Slot.Verbatim("note", string.Empty), FindingKind.PseudoClueProtein, FindingKind.PseudoCheckNoProtein);
 
-        var cause = clues.Count > 0 ? " with " + string.Join(" and ", clues) : string.Empty;
-        card.Steps.Add(Invariant.Format(
-            $"**Normal measured osmolality with a low sodium**: possible **pseudohyponatremia**{cause}, a laboratory artefact of indirect ion-selective electrode methods when lipids or proteins take up plasma volume. Checked: {string.Join("; ", checks)}."));
-        card.Findings.Add(Invariant.Format($"This is **not hypotonic hyponatremia**: the measured osmolality is normal; the low sodium may be an artefact (pseudohyponatremia){cause}."));
-        card.Differential.Add("Pseudohyponatremia (very high triglycerides or paraprotein/total protein).");
-        card.Differential.Add("Isotonic hyponatremia from other effective osmoles (glucose, mannitol, glycine or sorbitol irrigation fluid).");
+        var with = clues.Count > 0
+            ? Slot.Phrase("with", Finding.Of(FindingKind.PseudoWith, Slot.List("clues", clues, " and ")))
+            : Slot.Verbatim("with", string.Empty);
+        card.Steps.Add(Finding.Of(FindingKind.PseudoStep, with, Slot.List("checks", checks, "; ")));
+        card.Findings.Add(Finding.Of(FindingKind.PseudoFinding, with).With(Certainty.Possible).Weighted(Weights.Culprit));
+        card.Differential.Add(Finding.Of(FindingKind.PseudoCauseArtefact).With(Certainty.Possible));
+        card.Differential.Add(Finding.Of(FindingKind.PseudoCauseIsotonic).With(Certainty.Possible));
         // A whole-blood (blood-gas) sodium is measured by direct ion-selective electrode, which lipids and proteins do not disturb.
         var direct = t.Sodium.IsWholeBlood
             ? t.Sodium
@@ -153,28 +167,27 @@ public sealed class NotHypotonicRule : IAssessmentRule
         {
             card.ResourcesUsed.Add(direct.Reference);
             var normal = direct.Value >= context.Thresholds.NormalFrom;
-            card.Steps.Add(Invariant.Format(
-                $"**Direct sodium**: {Cite.Result(direct, context.Display)} is a whole-blood (direct ion-selective electrode) value: {(normal ? "it is **normal**, which supports an artefact" : "it is also low, so the low sodium is **real** and an artefact is unlikely; look for another effective osmole")}."));
+            card.Steps.Add(Finding.Of(normal ? FindingKind.PseudoDirectNormalStep : FindingKind.PseudoDirectLowStep, Slot.Result("result", direct)).RestingOn(direct.Reference));
             if (!normal)
             {
-                card.OfferSummaryAction(SummaryPriority, "normal osmolality but low direct sodium: look for other osmoles");
+                card.OfferSummaryAction(SummaryPriority, Finding.Of(FindingKind.PseudoDirectLowAction));
                 return;
             }
         }
         else
         {
-            card.Suggest(LabOrders.AsSuggestion(LabOrders.BloodSodium("Normal measured osmolality with a low laboratory sodium: a direct ion-selective electrode sodium tells an artefact from true hyponatremia."), recommended: true));
+            card.Suggest(LabOrders.AsSuggestion(LabOrders.BloodSodium(LabOrders.Why(FindingKind.PseudoDirectOrder)), recommended: true));
         }
 
-        card.NextSteps.Add("Confirm with a direct ion-selective electrode sodium (for example on a blood-gas analyser). If it is normal, the low value is an artefact and **no sodium treatment is indicated** for it; look after the lipid or protein disorder instead.");
-        card.OfferSummaryAction(SummaryPriority, "normal osmolality: possible artefact, check a direct-ISE (blood-gas) sodium");
+        card.NextSteps.Insert(0, Finding.Of(FindingKind.PseudoNext));
+        card.OfferSummaryAction(SummaryPriority, Finding.Of(FindingKind.PseudoAction));
     }
 
     private static void OtherOsmoles(DecisionContext context, TonicityAssessment t, AssessmentBuilder card)
     {
         var glucose = t.Glucose is null
-            ? "glucose is not available, so hyperglycaemia is not excluded"
-            : Invariant.Format($"glucose is not high ({Cite.Result(t.Glucose, context.Display)})");
+            ? Finding.Of(FindingKind.OsmoleGlucoseMissing).With(Certainty.Unknown)
+            : Finding.Of(FindingKind.OsmoleGlucoseNotHigh, Slot.Result("result", t.Glucose)).RestingOn(t.Glucose.Reference);
         var agents = OsmoleAgents.InRecord(context.Request.Facts);
         foreach (var (medication, _) in agents)
         {
@@ -182,22 +195,23 @@ public sealed class NotHypotonicRule : IAssessmentRule
         }
 
         var named = agents.Count == 0
-            ? "No such agent is in the medication record received."
-            : "**In the record**: " + string.Join("; ", agents.Select(a => $"{a.Label} ({Markdown.Escape(a.Medication.Reference)}{Describe(a.Medication)})")) + ": the likely osmole.";
-        var osmolality = Invariant.Format($"{(t.Method == OsmolalityMethod.Measured ? "osmolality" : "calculated osmolality")} {Invariant.Number(t.Total!.Value)} mOsm/kg");
-        var likely = agents.Count == 0 ? null : string.Join(" or ", agents.Select(a => a.Label).Distinct(StringComparer.Ordinal));
+            ? Finding.Of(FindingKind.OsmoleNamedNone)
+            : Finding.Of(FindingKind.OsmoleNamed, Agents(agents));
+        var osmolality = Finding.Of(
+            t.Method == OsmolalityMethod.Measured ? FindingKind.OsmoleOsmolalityMeasured : FindingKind.OsmoleOsmolalityCalculated,
+            Slot.Number("value", t.Total!.Value));
+        var likely = agents.Count == 0 ? null : Likely(agents);
         card.Sources.Add(WorkupSources.CommonPractice);
         card.MarkNotHypotonic(osmolality);
-        card.Steps.Add(Invariant.Format(
-            $"**High osmolality without high glucose**: {glucose}. Other osmoles that draw water out of cells and lower the sodium: **mannitol**, **glycine or sorbitol** irrigation fluid, **radiocontrast**, and, for the osmolality but not the tonicity, alcohols (ethanol, methanol, ethylene glycol) and a high urea. {named}"));
-        card.Findings.Insert(0, likely is null
-            ? Invariant.Format($"This is **not hypotonic hyponatremia** ({osmolality}): look for another osmole. The correction limits of hypotonic hyponatremia do not apply.")
-            : Invariant.Format($"This is **not hypotonic hyponatremia** ({osmolality}): the likely osmole is **{likely}**, in the record. The correction limits of hypotonic hyponatremia do not apply."));
-        card.Differential.Add("Hypertonic hyponatremia from mannitol, irrigation fluids or contrast; raised osmolality from alcohols or urea.");
-        card.NextSteps.Add("Review recent infusions, surgery with irrigation, contrast studies and alcohol or toxic-alcohol exposure; treat the cause rather than the sodium.");
+        card.Steps.Add(Finding.Of(FindingKind.OsmoleStep, Slot.Phrase("glucose", glucose), Slot.Phrase("named", named)));
+        card.Findings.Insert(0, (likely is null
+            ? Finding.Of(FindingKind.OsmoleFindingUnnamed, Slot.Phrase("osmolality", osmolality))
+            : Finding.Of(FindingKind.OsmoleFindingNamed, Slot.Phrase("osmolality", osmolality), Likely(agents))).Weighted(Weights.Culprit));
+        card.Differential.Add(Finding.Of(FindingKind.OsmoleCause).With(Certainty.Possible));
+        card.NextSteps.Insert(0, Finding.Of(FindingKind.OsmoleNext));
         card.OfferSummaryAction(SummaryPriority, likely is null
-            ? "look for another osmole; treat the cause"
-            : Invariant.Format($"likely {likely}; treat the cause"));
+            ? Finding.Of(FindingKind.OsmoleActionUnnamed)
+            : Finding.Of(FindingKind.OsmoleActionNamed, Likely(agents)));
     }
 
     /// <summary>
@@ -213,13 +227,11 @@ public sealed class NotHypotonicRule : IAssessmentRule
         }
 
         var evidence = t.GapIsHigh
-            ? Invariant.Format($"osmolality {Invariant.Number(t.Measured!.Value)} mOsm/kg (gap {Invariant.Number(t.Gap!.Value)})")
-            : Invariant.Format($"osmolality {Invariant.Number(t.Measured!.Value)} mOsm/kg");
-        var likely = string.Join(" or ", agents.Select(a => a.Label).Distinct(StringComparer.Ordinal));
+            ? Finding.Of(FindingKind.OsmoleOsmolalityGap, Slot.Number("value", t.Measured!.Value), Slot.Number("gap", t.Gap!.Value))
+            : Finding.Of(FindingKind.OsmoleOsmolalityMeasured, Slot.Number("value", t.Measured!.Value));
         card.MarkNotHypotonic(evidence);
-        card.Findings.Insert(0, Invariant.Format(
-            $"This is **not hypotonic hyponatremia** ({evidence}): the likely osmole is **{likely}**, in the record. The correction limits of hypotonic hyponatremia do not apply."));
-        card.OfferSummaryAction(SummaryPriority + 1, Invariant.Format($"likely {likely}"));
+        card.Findings.Insert(0, Finding.Of(FindingKind.OsmoleFindingNamed, Slot.Phrase("osmolality", evidence), Likely(agents)).Weighted(Weights.Culprit));
+        card.OfferSummaryAction(SummaryPriority + 1, Finding.Of(FindingKind.OsmoleActionIsotonic, Likely(agents)));
     }
 
     private static void OsmoleWithoutOsmolality(IReadOnlyList<(MedicationFact Medication, string Label)> agents, AssessmentBuilder card)
@@ -229,13 +241,21 @@ public sealed class NotHypotonicRule : IAssessmentRule
             card.ResourcesUsed.Add(medication.Reference);
         }
 
-        var listed = string.Join("; ", agents.Select(a => $"{a.Label} ({Markdown.Escape(a.Medication.Reference)}{Describe(a.Medication)})"));
         card.Sources.Add(WorkupSources.CommonPractice);
-        card.Steps.Add($"**An osmole is in the record** ({listed}) and the tonicity is unknown: the low sodium may be hypertonic or isotonic rather than hypotonic. A measured serum osmolality settles it before the sodium is treated.");
-        card.Findings.Add($"Possible osmole in the record: {listed}; the low sodium may not be hypotonic (measure serum osmolality).");
-        card.OfferSummaryAction(SummaryPriority, Invariant.Format($"{agents[0].Label} in the record: measure osmolality before treating"));
+        card.Steps.Add(Finding.Of(FindingKind.OsmoleUnknownStep, Agents(agents)));
+        card.Findings.Add(Finding.Of(FindingKind.OsmoleUnknownFinding, Agents(agents)).With(Certainty.Possible).Weighted(Weights.Culprit));
+        card.OfferSummaryAction(SummaryPriority, Finding.Of(FindingKind.OsmoleUnknownAction, Slot.Text("label", agents[0].Label)));
     }
 
-    private static string Describe(MedicationFact medication)
-        => string.IsNullOrWhiteSpace(medication.Text) ? string.Empty : ", \"" + Markdown.Escape(medication.Text) + "\"";
+    private static Slot Likely(IReadOnlyList<(MedicationFact Medication, string Label)> agents)
+        => Slot.List("likely", agents.Select(a => a.Label).Distinct(StringComparer.Ordinal).Select(l => (SlotValue)new TextValue(l, Escape: true)), " or ");
+
+    private static Slot Agents(IReadOnlyList<(MedicationFact Medication, string Label)> agents)
+        => Slot.List("agents", agents.Select(a => (SlotValue)new PhraseValue(Finding.Of(
+            FindingKind.OsmoleAgent,
+            Slot.Text("label", a.Label),
+            Slot.Text("reference", a.Medication.Reference),
+            string.IsNullOrWhiteSpace(a.Medication.Text)
+                ? Slot.Verbatim("text", string.Empty)
+                : Slot.Phrase("text", Finding.Of(FindingKind.OsmoleAgentText, Slot.Text("text", a.Medication.Text)))).RestingOn(a.Medication.Reference))), "; ");
 }

@@ -1,7 +1,8 @@
-using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+
+using CdsNatremia.Core.Findings;
 
 namespace CdsNatremia.Core.Workup;
 
@@ -59,21 +60,30 @@ public sealed class OnsetRule : IAssessmentRule
 
         if (acute)
         {
-            card.Steps.Add(Invariant.Format(
-                $"**Onset**: the last normal sodium, {Cite.Result(lastNormal!, context.Display)}, was {WorkupData.Duration(hours!.Value)} before the low value: a fall documented within {Invariant.Number(window)} h, so **acute** hyponatremia (2014 European guideline)."));
-            card.Findings.Add(Invariant.Format($"**Acute** onset: normal sodium {Invariant.Number(lastNormal!.Value)} mmol/L {WorkupData.Duration(hours.Value)} earlier."));
-            card.NextSteps.Add("Acute hyponatremia carries a higher risk of brain oedema: assess symptoms now and look for a recent cause (hypotonic intravenous fluids, surgery, drugs, excessive drinking, exercise).");
+            card.Steps.Add(Finding.Of(
+                FindingKind.OnsetAcuteStep,
+                Slot.Result("lastNormal", lastNormal!),
+                Slot.Hours("hours", hours!.Value),
+                Slot.Number("window", window)).RestingOn(lastNormal!.Reference));
+            card.Findings.Add(Finding.Of(FindingKind.OnsetAcuteFinding, Slot.Number("normal", lastNormal.Value), Slot.Hours("hours", hours.Value))
+                .RestingOn(lastNormal.Reference).Weighted(Weights.Pace));
+            card.Cautions.Add(Finding.Of(FindingKind.OnsetAcuteCaution, Slot.Hours("hours", hours.Value)));
+            card.NextSteps.Add(Finding.Of(FindingKind.OnsetAcuteNext));
             card.Raise(context.Options.Workup.AcuteIndicator);
-            card.OfferSummaryAction(42, "acute fall (< 48 h): assess symptoms now");
+            card.OfferSummaryAction(42, Finding.Of(FindingKind.OnsetAcuteAction));
             return;
         }
 
         var why = lastNormal is null
-            ? "no normal sodium is on record before it"
+            ? Finding.Of(FindingKind.OnsetChronicNoNormal)
             : hours < window
-                ? Invariant.Format($"the last normal sodium, {Cite.Result(lastNormal, context.Display)}, was {WorkupData.Duration(hours!.Value)} before the low value, but {WorkupData.Duration((context.Request.Now - lastNormal.EffectiveAt).TotalHours)} before this assessment, so the low sodium may have lasted {Invariant.Number(window)} h or more")
-                : Invariant.Format($"the last normal sodium, {Cite.Result(lastNormal, context.Display)}, was {WorkupData.Duration(hours!.Value)} before the low value, not within {Invariant.Number(window)} h");
-        card.Steps.Add(Invariant.Format(
-            $"**Onset**: {why}: **chronic or of unknown duration**, which the 2014 European guideline treats as chronic (correction limits apply)."));
+                ? Finding.Of(
+                    FindingKind.OnsetChronicTooOldNow,
+                    Slot.Result("lastNormal", lastNormal),
+                    Slot.Hours("hours", hours!.Value),
+                    Slot.Hours("sinceNow", (context.Request.Now - lastNormal.EffectiveAt).TotalHours),
+                    Slot.Number("window", window))
+                : Finding.Of(FindingKind.OnsetChronicNotWithin, Slot.Result("lastNormal", lastNormal), Slot.Hours("hours", hours!.Value), Slot.Number("window", window));
+        card.Steps.Add(Finding.Of(FindingKind.OnsetChronicStep, Slot.Phrase("why", why)));
     }
 }

@@ -3,6 +3,8 @@ using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Text;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
 /// <summary>
@@ -38,17 +40,19 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         var notMet = criteria.Count(c => c.Status == CriterionStatus.NotMet);
         var unknown = criteria.Count(c => c.Status is CriterionStatus.Unknown or CriterionStatus.CouldNotBeRead);
         var verdict = notMet > 0
-            ? "SIADH cannot be diagnosed on these data while a criterion is not met"
-            : unknown > 0
-                ? "SIADH is neither shown nor excluded: some criteria lack data"
-                : "the data are **consistent with SIADH** if the clinician finds the patient euvolaemic";
-        var lines = string.Join(" ", criteria.Select((c, i) => Invariant.Format($"({i + 1}) {c.Name}: **{c.StatusText}**: {c.DataText}.")));
-        card.Steps.Add(Invariant.Format(
-            $"**SIADH essential criteria**: {met} met, {notMet} not met, {unknown} unknown, euvolaemia for the clinician; {verdict}. {lines}"));
+            ? FindingKind.SiadhVerdictNotMet
+            : unknown > 0 ? FindingKind.SiadhVerdictUnknown : FindingKind.SiadhVerdictConsistent;
+        card.Steps.Add(Finding.Of(
+            FindingKind.SiadhStep,
+            Slot.Count("met", met),
+            Slot.Count("notMet", notMet),
+            Slot.Count("unknown", unknown),
+            Slot.Phrase("verdict", Finding.Of(verdict)),
+            Slot.List("lines", criteria.Select((c, i) => (SlotValue)new PhraseValue(c.Line(i + 1))), " ")));
         if (notMet == 0 && unknown == 0)
         {
-            card.Findings.Add("SIADH essential criteria met on the data (euvolaemia to be confirmed by the clinician).");
-            card.NextSteps.Add("If SIADH is confirmed, " + FurstRatio.RestrictionClause(context) + "; look for its cause (drugs, lung or intracranial disease, cancer, pain, nausea) and keep the correction within the limits.");
+            card.Findings.Add(Finding.Of(FindingKind.SiadhFinding).With(Certainty.Likely).Weighted(Weights.Cause));
+            card.NextSteps.Add(Finding.Of(FindingKind.SiadhNext, Slot.Phrase("restriction", FurstRatio.RestrictionClause(context))));
         }
     }
 
@@ -61,104 +65,129 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         var options = context.Options.Workup;
         var list = new List<SiadhCriterion>();
 
-        var hypo = Invariant.Format($"Effective serum osmolality < {Invariant.Number(options.HypotonicBelow)} mOsm/kg");
+        var hypo = Finding.Of(FindingKind.SiadhNameEffective, Slot.Number("threshold", options.HypotonicBelow));
         list.Add(tonicity.Effective is { } effective
             ? new SiadhCriterion(hypo, effective < options.HypotonicBelow ? CriterionStatus.Met : CriterionStatus.NotMet,
-                Invariant.Format($"{Invariant.Number(effective)} mOsm/kg ({(tonicity.Method == OsmolalityMethod.Measured ? "from " + Cite.Result(tonicity.Measured!, context.Display) : "calculated")})"))
-            : context.Request.Facts.Observe(Analyte.SerumOsmolality).CouldNotBeReadText is { } unreadOsm
-                ? new SiadhCriterion(hypo, CriterionStatus.CouldNotBeRead, unreadOsm)
-                : new SiadhCriterion(hypo, CriterionStatus.Unknown, "no serum osmolality"));
+                tonicity.Method == OsmolalityMethod.Measured
+                    ? Finding.Of(FindingKind.SiadhDataEffectiveMeasured, Slot.Number("value", effective), Slot.Result("result", tonicity.Measured!)).RestingOn(tonicity.Measured!.Reference)
+                    : Finding.Of(FindingKind.SiadhDataEffectiveCalculated, Slot.Number("value", effective)))
+            : context.Request.Facts.Observe(Analyte.SerumOsmolality) is { CouldNotBeRead: true } unreadOsm
+                ? new SiadhCriterion(hypo, CriterionStatus.CouldNotBeRead, Unread(unreadOsm.Reason, unreadOsm.ItemText))
+                : new SiadhCriterion(hypo, CriterionStatus.Unknown, Finding.Of(FindingKind.SiadhDataNoSerumOsmolality)));
 
-        var uosmName = Invariant.Format($"Urine osmolality > {Invariant.Number(options.DiluteUrineAtOrBelow)} mOsm/kg");
+        var uosmName = Finding.Of(FindingKind.SiadhNameUrineOsmolality, Slot.Number("threshold", options.DiluteUrineAtOrBelow));
         var urineFrom = context.Sodium.Latest is { } assessed ? assessed.EffectiveAt.AddHours(-options.UrineUsableBeforeSodiumHours) : (DateTimeOffset?)null;
         list.Add(urine.Osmolality is { } uosm
-            ? new SiadhCriterion(uosmName, uosm.Value > options.DiluteUrineAtOrBelow ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(uosm, context.Display))
-            : Urine(context, uosmName, Analyte.UrineOsmolality, urineFrom, options.DiluteUrineAtOrBelow, "no urine osmolality"));
+            ? new SiadhCriterion(uosmName, uosm.Value > options.DiluteUrineAtOrBelow ? CriterionStatus.Met : CriterionStatus.NotMet, Cited(uosm))
+            : Urine(context, uosmName, Analyte.UrineOsmolality, urineFrom, options.DiluteUrineAtOrBelow, FindingKind.SiadhDataNoUrineOsmolality));
 
-        var unaName = Invariant.Format($"Urine sodium > {Invariant.Number(options.LowUrineSodiumAtOrBelow)} mmol/L on normal salt and water intake");
+        var unaName = Finding.Of(FindingKind.SiadhNameUrineSodium, Slot.Number("threshold", options.LowUrineSodiumAtOrBelow));
         list.Add(urine.Sodium is { } una
-            ? new SiadhCriterion(unaName, una.Value > options.LowUrineSodiumAtOrBelow ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(una, context.Display))
-            : Urine(context, unaName, Analyte.UrineSodium, urineFrom, options.LowUrineSodiumAtOrBelow, "no urine sodium"));
+            ? new SiadhCriterion(unaName, una.Value > options.LowUrineSodiumAtOrBelow ? CriterionStatus.Met : CriterionStatus.NotMet, Cited(una))
+            : Urine(context, unaName, Analyte.UrineSodium, urineFrom, options.LowUrineSodiumAtOrBelow, FindingKind.SiadhDataNoUrineSodium));
 
-        list.Add(new SiadhCriterion("Clinical euvolaemia", CriterionStatus.ClinicianToAssess, "the service cannot examine the patient (see the volume clues)"));
+        list.Add(new SiadhCriterion(Finding.Of(FindingKind.SiadhNameEuvolaemia), CriterionStatus.ClinicianToAssess, Finding.Of(FindingKind.SiadhDataEuvolaemia)));
         list.Add(Thyroid(context, options));
         list.Add(Adrenal(context, options));
         list.Add(Diuretics(context, urine));
         return list;
     }
 
+    private static Finding Cited(LabResult result) => Finding.Of(FindingKind.SiadhDataResult, Slot.Result("result", result)).RestingOn(result.Reference);
+
+    private static Finding Unread(string? reason, string? text) => text is { Length: > 0 }
+        ? Finding.Of(FindingKind.SiadhDataUnreadNamed, Slot.Text("reason", reason ?? string.Empty), Slot.Text("text", text)).With(Certainty.CouldNotBeRead)
+        : Finding.Of(FindingKind.SiadhDataUnread, Slot.Text("reason", reason ?? string.Empty)).With(Certainty.CouldNotBeRead);
+
     private static SiadhCriterion Thyroid(DecisionContext context, WorkupOptions options)
     {
-        const string name = "Normal thyroid function";
+        var name = Finding.Of(FindingKind.SiadhNameThyroid);
         var tsh = Recent(context, Analyte.Thyrotropin, options);
         if (tsh is null)
         {
-            return NotMeasured(context, name, Analyte.Thyrotropin, Invariant.Format($"no TSH within {Invariant.Number(options.EndocrineTestMaxAgeDays)} days"));
+            return NotMeasured(context, name, Analyte.Thyrotropin, Finding.Of(FindingKind.SiadhDataNoTsh, Slot.Number("days", options.EndocrineTestMaxAgeDays)));
         }
 
         var low = tsh.ReferenceLow ?? options.ThyrotropinNormalFrom;
         var high = tsh.ReferenceHigh ?? options.ThyrotropinNormalTo;
-        var range = Invariant.Format($"reference {Invariant.Number(low)}–{Invariant.Number(high)} mIU/L{(tsh.ReferenceHigh is null ? ", default range: from memory" : ", laboratory range")}");
         var normal = tsh.Value >= low && tsh.Value <= high;
-        return new SiadhCriterion(name, normal ? CriterionStatus.Met : CriterionStatus.NotMet, Cite.Result(tsh, context.Display) + "; " + range);
+        return new SiadhCriterion(name, normal ? CriterionStatus.Met : CriterionStatus.NotMet, Finding.Of(
+            tsh.ReferenceHigh is null ? FindingKind.SiadhDataTshDefault : FindingKind.SiadhDataTsh,
+            Slot.Result("result", tsh),
+            Slot.Number("low", low),
+            Slot.Number("high", high)).RestingOn(tsh.Reference));
     }
 
     private static SiadhCriterion Adrenal(DecisionContext context, WorkupOptions options)
     {
-        const string name = "Normal adrenal function";
+        var name = Finding.Of(FindingKind.SiadhNameAdrenal);
         var cortisol = Recent(context, Analyte.Cortisol, options);
         if (cortisol is null)
         {
-            return NotMeasured(context, name, Analyte.Cortisol, Invariant.Format($"no cortisol within {Invariant.Number(options.EndocrineTestMaxAgeDays)} days"));
+            return NotMeasured(context, name, Analyte.Cortisol, Finding.Of(FindingKind.SiadhDataNoCortisol, Slot.Number("days", options.EndocrineTestMaxAgeDays)));
         }
 
         var low = cortisol.ReferenceLow ?? options.CortisolNormalFrom;
-        var source = cortisol.ReferenceLow is null ? "default lower limit: from memory" : "laboratory lower limit";
         var normal = cortisol.Value >= low;
-        var caveat = normal ? "; a single value in range does not fully exclude adrenal insufficiency (timing matters; a stimulation test settles doubt)" : string.Empty;
+        var data = Finding.Of(cortisol.ReferenceLow is null ? FindingKind.SiadhDataCortisolDefault : FindingKind.SiadhDataCortisol, Slot.Result("result", cortisol), Slot.Number("low", low))
+            .RestingOn(cortisol.Reference);
         return new SiadhCriterion(name, normal ? CriterionStatus.Met : CriterionStatus.NotMet,
-            Invariant.Format($"{Cite.Result(cortisol, context.Display)}; lower limit {Invariant.Number(low)} nmol/L ({source}){caveat}"));
+            normal ? Finding.Of(FindingKind.SiadhDataCortisolCaveat, Slot.Phrase("cortisol", data)).RestingOn(cortisol.Reference) : data);
     }
 
     private static SiadhCriterion Diuretics(DecisionContext context, UrineStudies urine)
     {
-        const string name = "No recent diuretic use";
+        var name = Finding.Of(FindingKind.SiadhNameDiuretics);
         Guard.NotNull(urine, nameof(urine));
 
         // A negative criterion: met only when diuretics are absent after a real look; an unreadable medicine makes it unknown.
-        return DiureticExposure.Observe(context).Match(
-            found => new SiadhCriterion(name, CriterionStatus.NotMet, string.Join("; ", found.Select(d => d.Describe(context.Display)))),
-            found => new SiadhCriterion(name, CriterionStatus.NotMet, string.Join("; ", found.Select(d => d.Describe(context.Display)))),
-            unread => new SiadhCriterion(name, CriterionStatus.CouldNotBeRead, unread.CouldNotBeReadText!),
-            looked => new SiadhCriterion(name, CriterionStatus.Met, Markdown.Escape(looked) + " (confirm with the patient)"));
+        var observed = DiureticExposure.Observe(context);
+        Finding Found(IReadOnlyList<DiureticExposure> found) => Finding.Of(
+            FindingKind.SiadhDataDiureticsFound,
+            Slot.List("drugs", found.Select(d => (SlotValue)new PhraseValue(d.Describe(context.Display))), "; "));
+        return observed.Match(
+            found => new SiadhCriterion(name, CriterionStatus.NotMet, Found(found)),
+            found => new SiadhCriterion(name, CriterionStatus.NotMet, Found(found)),
+            _ => new SiadhCriterion(name, CriterionStatus.CouldNotBeRead, Unread(observed.Reason, observed.ItemText)),
+            looked => new SiadhCriterion(name, CriterionStatus.Met, Finding.Of(FindingKind.SiadhDataDiureticsLooked, Slot.Text("looked", looked))));
     }
 
     /// <summary>A urine criterion ("above the threshold") with no usable measurement: judged on a bound when one decides it, else unknown or could not be read.</summary>
-    private static SiadhCriterion Urine(DecisionContext context, string name, Analyte analyte, DateTimeOffset? from, double threshold, string absentText)
+    private static SiadhCriterion Urine(DecisionContext context, Finding name, Analyte analyte, DateTimeOffset? from, double threshold, string absentKind)
     {
         var observed = context.Request.Facts.Observe(analyte, from);
         var status = observed.Judge(r => r.Value > threshold, r => Bounds.IsAbove(r, threshold));
         return observed.Match(
-            usable => new SiadhCriterion(name, status, Cite.Result(usable, context.Display)),
-            bound => new SiadhCriterion(name, status, Invariant.Format(
-                $"{AnalyteUnits.DisplayName(analyte)} {Bounds.Describe(bound)} {bound.Unit} at {context.Display.Time(bound.EffectiveAt)} ({Markdown.Escape(bound.Reference)}; a bound{(status == CriterionStatus.Unknown ? " that does not decide this criterion" : string.Empty)})")),
-            unread => new SiadhCriterion(name, CriterionStatus.CouldNotBeRead, unread.CouldNotBeReadText!),
-            _ => new SiadhCriterion(name, CriterionStatus.Unknown, absentText));
+            usable => new SiadhCriterion(name, status, Cited(usable)),
+            bound => new SiadhCriterion(name, status, Finding.Of(
+                status == CriterionStatus.Unknown ? FindingKind.SiadhDataBoundUndecided : FindingKind.SiadhDataBound,
+                Slot.Verbatim("analyte", AnalyteUnits.DisplayName(analyte)),
+                Slot.Verbatim("bound", Bounds.Describe(bound)),
+                Slot.Text("unit", bound.Unit),
+                Slot.Time("time", bound.EffectiveAt),
+                Slot.Text("reference", bound.Reference)).RestingOn(bound.Reference)),
+            _ => new SiadhCriterion(name, CriterionStatus.CouldNotBeRead, Unread(observed.Reason, observed.ItemText)),
+            _ => new SiadhCriterion(name, CriterionStatus.Unknown, Finding.Of(absentKind)));
     }
 
     /// <summary>
     /// A criterion with no usable measurement: could not be read when the only results were set aside or another
     /// patient's (or only a bound that does not decide it); otherwise unknown for lack of data.
     /// </summary>
-    private static SiadhCriterion NotMeasured(DecisionContext context, string name, Analyte analyte, string absentText)
+    private static SiadhCriterion NotMeasured(DecisionContext context, Finding name, Analyte analyte, Finding absent)
     {
         var from = context.Request.Now.AddDays(-context.Options.Workup.EndocrineTestMaxAgeDays);
-        return context.Request.Facts.Observe(analyte, from).Match(
-            usable => new SiadhCriterion(name, CriterionStatus.Unknown, absentText),
-            bound => new SiadhCriterion(name, CriterionStatus.Unknown, Invariant.Format(
-                $"{AnalyteUnits.DisplayName(analyte)} {Bounds.Describe(bound)} {bound.Unit} ({Markdown.Escape(bound.Reference)}) is a bound, not a measurement; it does not decide this criterion")),
-            unread => new SiadhCriterion(name, CriterionStatus.CouldNotBeRead, unread.CouldNotBeReadText!),
-            _ => new SiadhCriterion(name, CriterionStatus.Unknown, absentText));
+        var observed = context.Request.Facts.Observe(analyte, from);
+        return observed.Match(
+            usable => new SiadhCriterion(name, CriterionStatus.Unknown, absent),
+            bound => new SiadhCriterion(name, CriterionStatus.Unknown, Finding.Of(
+                FindingKind.SiadhDataBoundNotMeasured,
+                Slot.Verbatim("analyte", AnalyteUnits.DisplayName(analyte)),
+                Slot.Verbatim("bound", Bounds.Describe(bound)),
+                Slot.Text("unit", bound.Unit),
+                Slot.Text("reference", bound.Reference)).RestingOn(bound.Reference)),
+            _ => new SiadhCriterion(name, CriterionStatus.CouldNotBeRead, Unread(observed.Reason, observed.ItemText)),
+            _ => new SiadhCriterion(name, CriterionStatus.Unknown, absent));
     }
 
     private static LabResult? Recent(DecisionContext context, Analyte analyte, WorkupOptions options)

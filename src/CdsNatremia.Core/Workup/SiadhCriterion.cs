@@ -1,25 +1,37 @@
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
-/// <summary>One SIADH essential criterion with its state and the data behind it (card Markdown, already escaped).</summary>
-/// <param name="Name">The criterion, e.g. "Effective serum osmolality &lt; 275 mOsm/kg".</param>
-/// <param name="Status">Met, not met, unknown or for the clinician.</param>
-/// <param name="Data">The data it rests on.</param>
-public sealed record SiadhCriterion(string Name, CriterionStatus Status, string Data)
+/// <summary>One SIADH essential criterion with its state and the data behind it, as findings.</summary>
+/// <param name="Name">The criterion (its kind names it, e.g. <see cref="FindingKind.SiadhNameEffective"/>, with its threshold).</param>
+/// <param name="Status">Met, not met, unknown, could not be read, or for the clinician.</param>
+/// <param name="Data">The data it rests on (a result, a bound, what could not be read and why, or what is missing).</param>
+public sealed record SiadhCriterion(Finding Name, CriterionStatus Status, Finding Data)
 {
-    /// <summary>The state as cards print it.</summary>
-    public string StatusText => Status switch
+    /// <summary>The state as a phrase kind.</summary>
+    public string StatusKind => Status switch
     {
-        CriterionStatus.Met => "met",
-        CriterionStatus.NotMet => "not met",
-        CriterionStatus.Unknown => "unknown",
-        CriterionStatus.CouldNotBeRead => "unknown (could not be read)",
-        _ => "for the clinician to assess",
+        CriterionStatus.Met => FindingKind.SiadhStatusMet,
+        CriterionStatus.NotMet => FindingKind.SiadhStatusNotMet,
+        CriterionStatus.Unknown => FindingKind.SiadhStatusUnknown,
+        CriterionStatus.CouldNotBeRead => FindingKind.SiadhStatusCouldNotBeRead,
+        _ => FindingKind.SiadhStatusClinician,
     };
 
-    /// <summary>The data as printed after the state: a criterion that could not be read does not say so twice.</summary>
-    public string DataText => Status == CriterionStatus.CouldNotBeRead && Data.StartsWith(CouldNotBeReadPrefix, StringComparison.Ordinal)
-        ? Data[CouldNotBeReadPrefix.Length..]
-        : Data;
-
-    private const string CouldNotBeReadPrefix = "could not be read: ";
+    /// <summary>The criterion's line in the checklist, numbered from 1.</summary>
+    public Finding Line(int number) => Finding.Of(
+        FindingKind.SiadhLine,
+        Slot.Count("index", number),
+        Slot.Phrase("name", Name),
+        Slot.Phrase("status", Finding.Of(StatusKind)),
+        Slot.Phrase("data", Data)) with
+    {
+        Certainty = Status switch
+        {
+            CriterionStatus.Met or CriterionStatus.NotMet => Certainty.Established,
+            CriterionStatus.CouldNotBeRead => Certainty.CouldNotBeRead,
+            _ => Certainty.Unknown,
+        },
+        Evidence = Data.Evidence,
+    };
 }

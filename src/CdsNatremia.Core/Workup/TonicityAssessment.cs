@@ -3,6 +3,8 @@ using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
 /// <summary>
@@ -151,17 +153,14 @@ public sealed record TonicityAssessment
         return t > options.HypertonicAbove ? Tonicity.Hypertonic : Tonicity.Isotonic;
     }
 
-    /// <summary>The band as cards print it.</summary>
-    public static string NameOf(Tonicity band) => band switch
+    /// <summary>The band as a phrase.</summary>
+    public static Finding NameOf(Tonicity band) => Finding.Of(band switch
     {
-        Tonicity.Hypotonic => "hypotonic",
-        Tonicity.Isotonic => "isotonic",
-        Tonicity.Hypertonic => "hypertonic",
-        _ => "unknown",
-    };
-
-    /// <summary>The result cited with unit, time and reference, or "not available".</summary>
-    public static string CiteOrMissing(LabResult? result, string what, TimeDisplay display) => result is null ? what + " not available" : Cite.Result(result, display);
+        Tonicity.Hypotonic => FindingKind.TonicityBandHypotonic,
+        Tonicity.Isotonic => FindingKind.TonicityBandIsotonic,
+        Tonicity.Hypertonic => FindingKind.TonicityBandHypertonic,
+        _ => FindingKind.TonicityBandUnknown,
+    });
 
     /// <summary>A computed value as cards show it and rules use it: one decimal, half away from zero.</summary>
     private static double Shown(double value) => Math.Round(value, 1, MidpointRounding.AwayFromZero);

@@ -2,6 +2,8 @@ using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
 /// <summary>
@@ -28,81 +30,108 @@ public sealed class TonicityRule : IAssessmentRule
             card.ResourcesUsed.Add(used.Reference);
         }
 
-        var name = TonicityAssessment.NameOf(t.Band);
-        var edges = Invariant.Format(
-            $"hypotonic when effective osmolality is below {Invariant.Number(options.HypotonicBelow)} mOsm/kg (SIADH criteria; 2014 European guideline); hypertonic when total osmolality is above {Invariant.Number(options.HypertonicAbove)} mOsm/kg (reference range 275–295: common practice)");
+        var name = Slot.Phrase("band", TonicityAssessment.NameOf(t.Band));
+        var edges = Slot.Phrase("edges", Finding.Of(
+            FindingKind.TonicityEdges,
+            Slot.Number("hypotonicBelow", options.HypotonicBelow),
+            Slot.Number("hypertonicAbove", options.HypertonicAbove)));
+        var hours = Slot.Number("hours", options.PairedWithinHours);
+        var certainty = t.Band == Tonicity.Unknown ? Certainty.Unknown : Certainty.Established;
 
         switch (t.Method)
         {
             case OsmolalityMethod.Measured:
-                card.Steps.Add(Invariant.Format($"**Tonicity** (measured osmolality, the preferred method): {Cite.Result(t.Measured!, context.Display)}. {EffectiveText(t, context.Display)} → **{name}** ({edges})."));
-                card.Findings.Add(Invariant.Format($"Serum tonicity: **{name}** (measured osmolality {Invariant.Number(t.Measured!.Value)} mOsm/kg{EffectiveShort(t)})."));
+                card.Steps.Add(Finding.Of(FindingKind.TonicityMeasuredStep, Slot.Result("measured", t.Measured!), Slot.Phrase("effective", EffectiveText(t)), name, edges)
+                    .RestingOn(t.Measured!.Reference).With(certainty));
+                card.Findings.Add(Finding.Of(FindingKind.TonicityMeasuredFinding, name, Slot.Number("osmolality", t.Measured!.Value), EffectiveShort(t))
+                    .RestingOn(t.Measured.Reference).With(certainty).Weighted(Weights.Context));
                 break;
             case OsmolalityMethod.Calculated:
                 card.Sources.Add(WorkupSources.OsmolalityFormulas);
-                card.Steps.Add(Invariant.Format(
-                    $"**Tonicity** (calculated: no measured serum osmolality within {Invariant.Number(options.PairedWithinHours)} h of the sodium): {CalculatedText(t, context.Display)} → **{name}** ({edges}). A calculated value rests on the measured sodium itself, so it cannot exclude a falsely low sodium (pseudohyponatremia) or unmeasured osmoles; a measured osmolality settles it."));
-                card.Findings.Add(Invariant.Format($"Serum tonicity: **{name}** by calculation only (measured osmolality not available)."));
+                card.Steps.Add(Finding.Of(FindingKind.TonicityCalculatedStep, hours, Slot.Phrase("calculated", CalculatedText(t)), name, edges).With(certainty));
+                card.Findings.Add(Finding.Of(FindingKind.TonicityCalculatedFinding, name).With(certainty).Weighted(Weights.Context));
                 break;
             default:
-                card.Steps.Add(Invariant.Format(
-                    $"**Tonicity**: **unknown**: no measured serum osmolality and no glucose within {Invariant.Number(options.PairedWithinHours)} h of the sodium to calculate one. Until it is known, the low sodium is worked up as possibly hypotonic."));
-                card.Findings.Add("Serum tonicity: **unknown** (no measured osmolality, no glucose to calculate one).");
+                card.Steps.Add(Finding.Of(FindingKind.TonicityUnknownStep, hours).With(Certainty.Unknown));
+                card.Findings.Add(Finding.Of(FindingKind.TonicityUnknownFinding).With(Certainty.Unknown).Weighted(Weights.Context));
                 break;
         }
 
         if (t.Method == OsmolalityMethod.Calculated && t.Calculated is null && t.Band == Tonicity.Unknown)
         {
-            card.Steps.Add("Urea is not available, so only the effective osmolality could be calculated and it is not low; whether the serum is isotonic or hypertonic needs a measured osmolality.");
+            card.Steps.Add(Finding.Of(FindingKind.TonicityNoUreaStep).With(Certainty.Unknown));
         }
 
         if (t.Gap is { } gap)
         {
             card.Sources.Add(WorkupSources.OsmolalityFormulas);
-            var verdict = t.GapIsHigh
-                ? Invariant.Format($"above {Invariant.Number(options.OsmolalGapAbove)} mOsm/kg, **raised**: unmeasured osmoles (e.g. alcohols, mannitol) or a falsely low sodium (pseudohyponatremia) are possible")
-                : Invariant.Format($"not above {Invariant.Number(options.OsmolalGapAbove)} mOsm/kg");
-            card.Steps.Add(Invariant.Format(
-                $"**Osmolal gap** {Invariant.Number(gap)} mOsm/kg (measured {Invariant.Number(t.Measured!.Value)} − calculated {Invariant.Number(t.Calculated!.Value)}): {verdict}."));
+            var above = Slot.Number("above", options.OsmolalGapAbove);
+            var verdict = Finding.Of(t.GapIsHigh ? FindingKind.TonicityGapRaised : FindingKind.TonicityGapNormal, above);
+            card.Steps.Add(Finding.Of(
+                FindingKind.TonicityGapStep,
+                Slot.Number("gap", gap),
+                Slot.Number("measured", t.Measured!.Value),
+                Slot.Number("calculated", t.Calculated!.Value),
+                Slot.Phrase("verdict", verdict)));
             if (t.GapIsHigh)
             {
-                card.Findings.Add(Invariant.Format($"Osmolal gap {Invariant.Number(gap)} mOsm/kg: raised."));
+                card.Findings.Add(Finding.Of(FindingKind.TonicityGapFinding, Slot.Number("gap", gap)).Weighted(Weights.Cause));
             }
         }
     }
 
     /// <summary>The calculated osmolality with its inputs, in the units the laboratory reported.</summary>
-    internal static string CalculatedText(TonicityAssessment t, TimeDisplay display)
+    internal static Finding CalculatedText(TonicityAssessment t)
     {
-        var na = Invariant.Number(t.Sodium.Value);
+        var na = Slot.Number("sodium", t.Sodium.Value);
         if (t.Calculated is not { } calculated)
         {
-            return Invariant.Format(
-                $"effective osmolality 2 × {na} + glucose {Invariant.Number(t.Glucose!.Value)} = {Invariant.Number(t.CalculatedEffective!.Value)} mOsm/kg (urea not available; {Cite.Result(t.Glucose, display)})");
+            return Finding.Of(
+                FindingKind.TonicityCalcEffectiveOnly,
+                na,
+                Slot.Number("glucose", t.Glucose!.Value),
+                Slot.Number("effective", t.CalculatedEffective!.Value),
+                Slot.Result("glucoseResult", t.Glucose)).RestingOn(t.Glucose.Reference);
         }
 
         if (t.ReportedInUsUnits)
         {
             // The terms shown are the exact molar-mass conversions, so this total is the SI total, digit for digit.
-            return Invariant.Format(
-                $"{Invariant.Number(calculated)} mOsm/kg (US units as reported: 2 × {na} + glucose {Invariant.Number(t.Glucose!.OriginalValue!.Value)} mg/dL ÷ 18 + urea nitrogen {Invariant.Number(t.Urea!.OriginalValue!.Value)} mg/dL ÷ 2.8 = {Invariant.Number(2 * t.Sodium.Value)} + {Invariant.Number(t.Glucose.Value)} + {Invariant.Number(t.Urea.Value)}, with the exact divisors 18.016 and 2.8014; {Cite.Result(t.Glucose, display)}; {Cite.Result(t.Urea, display)})");
+            return Finding.Of(
+                FindingKind.TonicityCalcUs,
+                Slot.Number("calculated", calculated),
+                na,
+                Slot.Number("glucoseMg", t.Glucose!.OriginalValue!.Value),
+                Slot.Number("ureaMg", t.Urea!.OriginalValue!.Value),
+                Slot.Number("twoNa", 2 * t.Sodium.Value),
+                Slot.Number("glucose", t.Glucose.Value),
+                Slot.Number("urea", t.Urea.Value),
+                Slot.Result("glucoseResult", t.Glucose),
+                Slot.Result("ureaResult", t.Urea)).RestingOn(t.Glucose.Reference, t.Urea.Reference);
         }
 
-        return Invariant.Format(
-            $"{Invariant.Number(calculated)} mOsm/kg (SI units: 2 × {na} + glucose {Invariant.Number(t.Glucose!.Value)} + urea {Invariant.Number(t.Urea!.Value)} mmol/L; {Cite.Result(t.Glucose, display)}; {Cite.Result(t.Urea, display)})");
+        return Finding.Of(
+            FindingKind.TonicityCalcSi,
+            Slot.Number("calculated", calculated),
+            na,
+            Slot.Number("glucose", t.Glucose!.Value),
+            Slot.Number("urea", t.Urea!.Value),
+            Slot.Result("glucoseResult", t.Glucose),
+            Slot.Result("ureaResult", t.Urea)).RestingOn(t.Glucose.Reference, t.Urea.Reference);
     }
 
-    private static string EffectiveText(TonicityAssessment t, TimeDisplay display)
-    {
-        if (t.Urea is null)
-        {
-            return "Urea is not available, so the effective osmolality (urea excluded) is taken as the measured value, an upper bound";
-        }
+    private static Finding EffectiveText(TonicityAssessment t)
+        => t.Urea is null
+            ? Finding.Of(FindingKind.TonicityEffectiveNoUrea)
+            : Finding.Of(
+                FindingKind.TonicityEffective,
+                Slot.Number("measured", t.Measured!.Value),
+                Slot.Number("urea", t.Urea.Value),
+                Slot.Number("effective", t.Effective!.Value),
+                Slot.Result("ureaResult", t.Urea)).RestingOn(t.Urea.Reference);
 
-        return Invariant.Format(
-            $"Effective osmolality, excluding urea (an ineffective osmole that crosses cell membranes: common practice): {Invariant.Number(t.Measured!.Value)} − urea {Invariant.Number(t.Urea.Value)} = {Invariant.Number(t.Effective!.Value)} mOsm/kg ({Cite.Result(t.Urea, display)})");
-    }
-
-    private static string EffectiveShort(TonicityAssessment t)
-        => t.Urea is null ? string.Empty : Invariant.Format($", effective {Invariant.Number(t.Effective!.Value)} mOsm/kg");
+    private static Slot EffectiveShort(TonicityAssessment t)
+        => t.Urea is null
+            ? Slot.Verbatim("effectiveShort", string.Empty)
+            : Slot.Phrase("effectiveShort", Finding.Of(FindingKind.TonicityEffectiveShort, Slot.Number("effective", t.Effective!.Value)));
 }

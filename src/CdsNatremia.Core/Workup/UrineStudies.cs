@@ -3,6 +3,8 @@ using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
 /// <summary>
@@ -49,24 +51,29 @@ public sealed record UrineStudies
     }
 
     /// <summary>The result cited with its labels (timing against the serum sodium, diuretic in use).</summary>
-    public string CiteWithLabels(LabResult urine, LabResult serumSodium, WorkupOptions options, TimeDisplay display)
+    public Finding CiteWithLabels(LabResult urine, LabResult serumSodium, WorkupOptions options, TimeDisplay display)
     {
         Guard.NotNull(urine, nameof(urine));
         Guard.NotNull(serumSodium, nameof(serumSodium));
         Guard.NotNull(options, nameof(options));
-        var labels = new List<string>();
-        if (Math.Abs((urine.EffectiveAt - serumSodium.EffectiveAt).TotalHours) > options.UrineLabelAfterHours)
+        var labels = new List<SlotValue>();
+        var apart = (urine.EffectiveAt - serumSodium.EffectiveAt).TotalHours;
+        if (Math.Abs(apart) > options.UrineLabelAfterHours)
         {
-            labels.Add(Invariant.Format(
-                $"**taken {WorkupData.Offset(urine.EffectiveAt, serumSodium.EffectiveAt)} the serum sodium**, more than {Invariant.Number(options.UrineLabelAfterHours)} h apart: it may not reflect the same state"));
+            var offset = Math.Abs(apart) < 0.05
+                ? Finding.Of(FindingKind.UrineOffsetSame)
+                : Finding.Of(apart > 0 ? FindingKind.UrineOffsetAfter : FindingKind.UrineOffsetBefore, Slot.Hours("hours", Math.Abs(apart)));
+            labels.Add(new PhraseValue(Finding.Of(FindingKind.UrineLabelApart, Slot.Phrase("offset", offset), Slot.Number("hours", options.UrineLabelAfterHours))));
         }
 
         var onDiuretic = Diuretics.Where(d => d.InUseAt(urine.EffectiveAt)).ToList();
         if (onDiuretic.Count > 0)
         {
-            labels.Add("**taken while a diuretic was in use**: " + string.Join("; ", onDiuretic.Select(d => d.Describe(display))));
+            labels.Add(new PhraseValue(Finding.Of(FindingKind.UrineLabelDiuretic, Slot.List("drugs", onDiuretic.Select(d => (SlotValue)new PhraseValue(d.Describe(display))), "; "))));
         }
 
-        return labels.Count == 0 ? Cite.Result(urine, display) : Cite.Result(urine, display) + " [" + string.Join("; ", labels) + "]";
+        return labels.Count == 0
+            ? Finding.Of(FindingKind.UrineCite, Slot.Result("result", urine)).RestingOn(urine.Reference)
+            : Finding.Of(FindingKind.UrineCiteLabelled, Slot.Result("result", urine), Slot.List("labels", labels, "; ")).RestingOn(urine.Reference);
     }
 }

@@ -3,6 +3,8 @@ using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
 /// <summary>
@@ -34,64 +36,62 @@ public sealed class UrineStudiesRule : IAssessmentRule
         card.RuleIds.Add(RuleId);
         card.Sources.Add(WorkupSources.European2014);
 
+        var dilute = Slot.Number("dilute", options.DiluteUrineAtOrBelow);
+        var low = Slot.Number("low", options.LowUrineSodiumAtOrBelow);
         if (urine.Osmolality is { } osm)
         {
             card.ResourcesUsed.Add(osm.Reference);
+            var cited = Slot.Phrase("cited", urine.CiteWithLabels(osm, serum, options, context.Display));
             if (urine.IsDilute)
             {
-                var naNote = urine.Sodium is { } una
-                    ? Invariant.Format($" Urine sodium {Invariant.Number(una.Value)} mmol/L is reported but, with maximally dilute urine, it does not steer the reasoning.")
-                    : string.Empty;
-                card.Steps.Add(Invariant.Format(
-                    $"**Urine osmolality**: {urine.CiteWithLabels(osm, serum, options, context.Display)} is at or below {Invariant.Number(options.DiluteUrineAtOrBelow)} mOsm/kg: maximally dilute urine, so **relative excess water intake** (or low solute intake) (2014 European guideline).{naNote}"));
-                card.Findings.Add(Invariant.Format($"Dilute urine (osmolality {Invariant.Number(osm.Value)} mOsm/kg): relative excess water or low solute intake."));
-                card.Differential.Add("Primary polydipsia or excess water intake; low solute intake (poor diet, \"tea and toast\", beer drinking).");
-                card.NextSteps.Add("Water restriction and a normal diet usually correct it; a brisk water diuresis can raise the sodium too fast, so recheck sodium often.");
+                var sodiumNote = urine.Sodium is { } una
+                    ? Slot.Phrase("sodiumNote", Finding.Of(FindingKind.UrineOsmolalityDiluteSodiumNote, Slot.Number("sodium", una.Value)))
+                    : Slot.Verbatim("sodiumNote", string.Empty);
+                card.Steps.Add(Finding.Of(FindingKind.UrineOsmolalityDiluteStep, cited, dilute, sodiumNote).RestingOn(osm.Reference));
+                card.Findings.Add(Finding.Of(FindingKind.UrineOsmolalityDiluteFinding, Slot.Number("osmolality", osm.Value)).RestingOn(osm.Reference).Weighted(Weights.Cause));
+                card.Differential.Add(Finding.Of(FindingKind.UrineOsmolalityDiluteCause).With(Certainty.Likely));
+                card.NextSteps.Add(Finding.Of(FindingKind.UrineOsmolalityDiluteNext));
                 return;
             }
 
-            card.Steps.Add(Invariant.Format(
-                $"**Urine osmolality**: {urine.CiteWithLabels(osm, serum, options, context.Display)} is above {Invariant.Number(options.DiluteUrineAtOrBelow)} mOsm/kg: the kidneys are not excreting free water (vasopressin activity); urine sodium comes next."));
+            card.Steps.Add(Finding.Of(FindingKind.UrineOsmolalityConcentratedStep, cited, dilute).RestingOn(osm.Reference));
         }
         else
         {
-            card.Steps.Add("**Urine osmolality**: " + NotUsable(context, Analyte.UrineOsmolality, serum) + "; it decides whether water intake alone explains the low sodium (≤ 100 mOsm/kg).");
+            card.Steps.Add(Finding.Of(FindingKind.UrineOsmolalityMissingStep, Slot.Phrase("why", NotUsable(context, Analyte.UrineOsmolality, serum))));
         }
 
         if (urine.Sodium is not { } una2)
         {
-            card.Steps.Add(Invariant.Format(
-                $"**Urine sodium**: {NotUsable(context, Analyte.UrineSodium, serum)}; at or below {Invariant.Number(options.LowUrineSodiumAtOrBelow)} mmol/L it points to low effective arterial blood volume, above it to renal sodium loss or SIADH."));
+            card.Steps.Add(Finding.Of(FindingKind.UrineSodiumMissingStep, Slot.Phrase("why", NotUsable(context, Analyte.UrineSodium, serum)), low));
             return;
         }
 
         card.ResourcesUsed.Add(una2.Reference);
-        var cited = urine.CiteWithLabels(una2, serum, options, context.Display);
+        var cited2 = Slot.Phrase("cited", urine.CiteWithLabels(una2, serum, options, context.Display));
         var onDiuretic = urine.DiureticsAtUrineSodium.Count > 0;
+        var sodium = Slot.Number("sodium", una2.Value);
         if (una2.Value <= options.LowUrineSodiumAtOrBelow)
         {
-            var diureticNote = onDiuretic ? " A low urine sodium despite a diuretic still points the same way." : string.Empty;
-            card.Steps.Add(Invariant.Format(
-                $"**Urine sodium**: {cited} is at or below {Invariant.Number(options.LowUrineSodiumAtOrBelow)} mmol/L: **low effective arterial blood volume** (2014 European guideline).{diureticNote}"));
-            card.Findings.Add(Invariant.Format($"Urine sodium {Invariant.Number(una2.Value)} mmol/L (≤ {Invariant.Number(options.LowUrineSodiumAtOrBelow)}): low effective arterial blood volume."));
-            card.Differential.Add("Low effective arterial blood volume: with low extracellular volume, gastrointestinal losses, third spacing or past diuretics; with high extracellular volume, heart failure, cirrhosis or nephrotic syndrome.");
+            var diureticNote = onDiuretic ? Slot.Phrase("diureticNote", Finding.Of(FindingKind.UrineSodiumLowDiureticNote)) : Slot.Verbatim("diureticNote", string.Empty);
+            card.Steps.Add(Finding.Of(FindingKind.UrineSodiumLowStep, cited2, low, diureticNote).RestingOn(una2.Reference));
+            card.Findings.Add(Finding.Of(FindingKind.UrineSodiumLowFinding, sodium, low).RestingOn(una2.Reference).Weighted(Weights.Cause));
+            card.Differential.Add(Finding.Of(FindingKind.UrineSodiumLowCause).With(Certainty.Likely));
             return;
         }
 
-        var caution = onDiuretic
-            ? " Because a diuretic was in use when it was taken, a high urine sodium **cannot be read** as SIADH or salt wasting: it may simply be the diuretic."
-            : string.Empty;
-        card.Steps.Add(Invariant.Format(
-            $"**Urine sodium**: {cited} is above {Invariant.Number(options.LowUrineSodiumAtOrBelow)} mmol/L: renal sodium loss or normal intake with water retention: diuretics, kidney disease, SIADH, adrenal insufficiency, hypothyroidism, cerebral or renal salt wasting (2014 European guideline).{caution}"));
-        card.Findings.Add(Invariant.Format($"Urine sodium {Invariant.Number(una2.Value)} mmol/L (> {Invariant.Number(options.LowUrineSodiumAtOrBelow)}){(onDiuretic ? ", taken on a diuretic" : string.Empty)}."));
-        card.Differential.Add("Urine sodium above the cut-off: diuretics, kidney disease, SIADH, adrenal insufficiency, hypothyroidism, cerebral or renal salt wasting.");
+        var caution = onDiuretic ? Slot.Phrase("diureticNote", Finding.Of(FindingKind.UrineSodiumHighDiureticNote)) : Slot.Verbatim("diureticNote", string.Empty);
+        card.Steps.Add(Finding.Of(FindingKind.UrineSodiumHighStep, cited2, low, caution).RestingOn(una2.Reference));
+        card.Findings.Add(Finding.Of(onDiuretic ? FindingKind.UrineSodiumHighFindingDiuretic : FindingKind.UrineSodiumHighFinding, sodium, low)
+            .RestingOn(una2.Reference).Weighted(Weights.Cause));
+        card.Differential.Add(Finding.Of(FindingKind.UrineSodiumHighCause).With(Certainty.Possible));
     }
 
     /// <summary>"not available", or why the result that was received could not be used (set aside, or only a bound).</summary>
-    private static string NotUsable(DecisionContext context, Analyte analyte, LabResult serum)
+    private static Finding NotUsable(DecisionContext context, Analyte analyte, LabResult serum)
         => context.Request.Facts.Observe(analyte, serum.EffectiveAt.AddHours(-context.Options.Workup.UrineUsableBeforeSodiumHours)).Match(
-            _ => "not available",
-            bound => Invariant.Format($"reported only as a bound ({Bounds.Describe(bound)} {bound.Unit}, {Markdown.Escape(bound.Reference)}), not a measurement"),
-            unread => "**unknown** (" + unread.CouldNotBeReadText + ")",
-            _ => "not available");
+            _ => Finding.Of(FindingKind.UrineNotUsableAbsent),
+            bound => Finding.Of(FindingKind.UrineNotUsableBound, Slot.Verbatim("bound", Bounds.Describe(bound)), Slot.Text("unit", bound.Unit), Slot.Text("reference", bound.Reference)),
+            unread => Finding.Of(FindingKind.UrineNotUsableUnread, Slot.Verbatim("text", unread.CouldNotBeReadText!)).With(Certainty.CouldNotBeRead),
+            _ => Finding.Of(FindingKind.UrineNotUsableAbsent));
 }

@@ -3,6 +3,8 @@ using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Text;
 
+using CdsNatremia.Core.Findings;
+
 namespace CdsNatremia.Core.Workup;
 
 /// <summary>
@@ -15,19 +17,19 @@ public sealed class VolumeCluesRule : IAssessmentRule
     /// <summary>Condition sets read as clues, with what each usually goes with.</summary>
     internal static readonly IReadOnlyList<(string SetId, string Meaning)> ConditionClues =
     [
-        ("condition-heart-failure", "usually found with a high extracellular volume (oedema) and low effective arterial blood volume"),
-        ("condition-cirrhosis", "usually found with a high extracellular volume (ascites, oedema) and low effective arterial blood volume"),
-        ("condition-nephrotic-syndrome", "usually found with a high extracellular volume (oedema)"),
-        ("condition-chronic-kidney-disease", "reduced free-water excretion; volume may be high or low"),
-        ("condition-vomiting", "fluid and sodium loss, usually with a low extracellular volume (vomiting and nausea also release vasopressin)"),
-        ("condition-diarrhoea", "fluid and sodium loss, usually with a low extracellular volume"),
-        ("condition-adrenal-insufficiency", "mineralocorticoid lack gives low volume; glucocorticoid lack gives an SIADH-like, euvolaemic picture"),
-        ("condition-hypothyroidism", "a cause of euvolaemic hyponatremia when severe"),
-        ("condition-pneumonia", "a cause of SIADH (euvolaemic)"),
-        ("condition-intracranial-disorder", "a cause of SIADH or of cerebral salt wasting"),
-        ("condition-small-cell-lung-cancer", "a cause of SIADH (ectopic vasopressin)"),
-        ("condition-alcohol-use-disorder", "low solute intake (beer drinking) with dilute urine"),
-        ("condition-malnutrition", "low solute intake"),
+        ("condition-heart-failure", FindingKind.VolumeMeaningHeartFailure),
+        ("condition-cirrhosis", FindingKind.VolumeMeaningCirrhosis),
+        ("condition-nephrotic-syndrome", FindingKind.VolumeMeaningNephroticSyndrome),
+        ("condition-chronic-kidney-disease", FindingKind.VolumeMeaningChronicKidneyDisease),
+        ("condition-vomiting", FindingKind.VolumeMeaningVomiting),
+        ("condition-diarrhoea", FindingKind.VolumeMeaningDiarrhoea),
+        ("condition-adrenal-insufficiency", FindingKind.VolumeMeaningAdrenalInsufficiency),
+        ("condition-hypothyroidism", FindingKind.VolumeMeaningHypothyroidism),
+        ("condition-pneumonia", FindingKind.VolumeMeaningPneumonia),
+        ("condition-intracranial-disorder", FindingKind.VolumeMeaningIntracranialDisorder),
+        ("condition-small-cell-lung-cancer", FindingKind.VolumeMeaningSmallCellLungCancer),
+        ("condition-alcohol-use-disorder", FindingKind.VolumeMeaningAlcoholUseDisorder),
+        ("condition-malnutrition", FindingKind.VolumeMeaningMalnutrition),
     ];
 
     /// <inheritdoc />
@@ -46,52 +48,57 @@ public sealed class VolumeCluesRule : IAssessmentRule
 
         card.RuleIds.Add(RuleId);
         card.Sources.Add(WorkupSources.CommonPractice);
-        var clues = new List<string>();
+        var clues = new List<SlotValue>();
         foreach (var (condition, meaning) in FindConditionClues(context))
         {
             card.ResourcesUsed.Add(condition.Reference);
-            clues.Add(Invariant.Format($"{meaning.Label} ({Markdown.Escape(condition.Reference)}{Describe(condition)}): {meaning.Text}"));
+            var text = string.IsNullOrWhiteSpace(condition.Text)
+                ? Slot.Verbatim("text", string.Empty)
+                : Slot.Phrase("text", Finding.Of(FindingKind.VolumeClueConditionText, Slot.Text("text", condition.Text)));
+            clues.Add(new PhraseValue(Finding.Of(
+                FindingKind.VolumeClueCondition,
+                Slot.Text("label", meaning.Label),
+                Slot.Text("reference", condition.Reference),
+                text,
+                Slot.Phrase("meaning", Finding.Of(meaning.Text))).RestingOn(condition.Reference)));
         }
 
         foreach (var diuretic in DiureticExposure.Find(context))
         {
             card.ResourcesUsed.Add(diuretic.Medication.Reference);
-            clues.Add("diuretic in use: " + diuretic.Describe(context.Display) + ": sodium and volume loss; urine sodium is hard to read");
+            clues.Add(new PhraseValue(Finding.Of(FindingKind.VolumeClueDiuretic, Slot.Phrase("drug", diuretic.Describe(context.Display)))));
         }
 
         foreach (var stopped in DiureticExposure.FindRecentlyStopped(context))
         {
             card.ResourcesUsed.Add(stopped.Medication.Reference);
-            clues.Add("diuretic recently stopped: " + stopped.Describe(context.Display) + ": recent sodium and volume loss is possible");
+            clues.Add(new PhraseValue(Finding.Of(FindingKind.VolumeClueDiureticStopped, Slot.Phrase("drug", stopped.Describe(context.Display)))));
         }
 
         // Set-aside data is not "no clue": a medicine that could not be read makes diuretic use unknown, named by its own text.
         if (DiureticExposure.Observe(context).CouldNotBeReadText is { } unreadable)
         {
-            clues.Add("diuretic use: **unknown** (" + unreadable + ")");
+            clues.Add(new PhraseValue(Finding.Of(FindingKind.VolumeClueDiureticUnknown, Slot.Text("text", unreadable)).With(Certainty.CouldNotBeRead)));
         }
 
         var facts = context.Request.Facts;
-        var unavailable = new List<string>();
-        if (WorkupData.ConditionsUnreadable(facts))
+        var conditions = WorkupData.ConditionsUnreadable(facts);
+        var medications = WorkupData.MedicationsUnreadable(facts);
+        var gap = (conditions, medications) switch
         {
-            unavailable.Add("conditions");
-        }
+            (true, true) => Slot.Phrase("gap", Finding.Of(FindingKind.VolumeGapBoth)),
+            (true, false) => Slot.Phrase("gap", Finding.Of(FindingKind.VolumeGapConditions)),
+            (false, true) => Slot.Phrase("gap", Finding.Of(FindingKind.VolumeGapMedications)),
+            _ => Slot.Verbatim("gap", string.Empty),
+        };
+        card.Steps.Add(clues.Count == 0
+            ? Finding.Of(FindingKind.VolumeStepNone, gap)
+            : Finding.Of(FindingKind.VolumeStep, Slot.List("clues", clues, "; "), gap));
 
-        if (WorkupData.MedicationsUnreadable(facts))
-        {
-            unavailable.Add("medications");
-        }
-
-        var gaps = unavailable.Count == 0 ? string.Empty : " The record's " + string.Join(" and ", unavailable) + " could not be read, so clues may be missing.";
-        var found = clues.Count == 0 ? "none found in the record." : string.Join("; ", clues) + ".";
-        card.Steps.Add(
-            "**Volume clues** (the service cannot examine the patient and does **not** decide the volume status; the clinician does): " + found + gaps);
-
-        card.Differential.Add("If the clinician finds **low extracellular volume** (hypovolaemia): vomiting or diarrhoea, diuretics, adrenal insufficiency, cerebral or renal salt wasting, third-space losses.");
-        card.Differential.Add("If **normal volume** (euvolaemia): SIADH (drugs, lung or intracranial disease, cancer, pain, nausea, after surgery), hypothyroidism, glucocorticoid deficiency, excess water or low solute intake.");
-        card.Differential.Add("If **high volume** (oedema, ascites): heart failure, cirrhosis, nephrotic syndrome, advanced kidney disease.");
-        card.NextSteps.Add("Assess the volume status at the bedside (skin turgor, mucous membranes, jugular venous pressure, oedema, ascites, orthostatic blood pressure); it steers the differential above.");
+        card.Differential.Add(Finding.Of(FindingKind.VolumeCauseLow).With(Certainty.Possible));
+        card.Differential.Add(Finding.Of(FindingKind.VolumeCauseNormal).With(Certainty.Possible));
+        card.Differential.Add(Finding.Of(FindingKind.VolumeCauseHigh).With(Certainty.Possible));
+        card.NextSteps.Add(Finding.Of(FindingKind.VolumeNext));
     }
 
     /// <summary>Conditions in the record that match a clue set, each with the set's label and what it usually goes with.</summary>
@@ -113,7 +120,4 @@ public sealed class VolumeCluesRule : IAssessmentRule
             }
         }
     }
-
-    private static string Describe(ConditionFact condition)
-        => string.IsNullOrWhiteSpace(condition.Text) ? string.Empty : ", \"" + Markdown.Escape(condition.Text) + "\"";
 }

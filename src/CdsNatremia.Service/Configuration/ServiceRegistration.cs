@@ -32,6 +32,8 @@ public static class ServiceRegistration
         services.AddSingleton(sp => new FactsAssembler(sp.GetRequiredService<IOptions<RuleOptions>>().Value.Reading));
         services.AddSingleton<ServiceCatalog>();
         services.AddSingleton<CardResponseWriter>();
+        services.AddOptions<Reports.ReportOptions>().Bind(builder.Configuration.GetSection(Reports.ReportOptions.Section)).ValidateDataAnnotations().ValidateOnStart();
+        services.AddSingleton<Reports.CardReports>();
         services.AddFhirFetching(builder.Configuration);
         services.AddSingleton<HookHandler>();
         builder.AddNatremiaSecurity();
@@ -66,6 +68,7 @@ public static class ServiceRegistration
         app.UseNatremiaSecurity();
         app.MapDiscovery();
         app.MapHooks();
+        app.MapCardReports();
         app.MapHealth();
         app.MapFeedback();
         app.MapAdminReports();

@@ -26,6 +26,9 @@ internal static class HookEndpoints
         CardResponseWriter writer,
         CardAudit audit,
         RepeatSuppression repeats,
+        Reports.CardReports reports,
+        IOptions<Reports.ReportOptions> reportOptions,
+        IOptions<ClientAuthenticationOptions> authOptions,
         IOptions<NatremiaServiceOptions> options,
         IOptions<InputLimitsOptions> limits,
         CancellationToken cancellationToken)
@@ -52,11 +55,17 @@ internal static class HookEndpoints
                     return Problems.Of(StatusCodes.Status412PreconditionFailed, "Required data not available", missing.Problems);
                 case HookOutcome.Cards decided:
                     var cards = decided with { Items = await repeats.ApplyAsync(service, decided.PatientId, decided.Now, decided.Items, cancellationToken).ConfigureAwait(false) };
-                    var (body, issued) = writer.Write(cards.Items, cards.PatientId, cards.Now);
+                    var reportBase = reportOptions.Value.PublicBaseUrl ?? authOptions.Value.PublicBaseUrl ?? $"{http.Scheme}://{http.Host}";
+                    var (body, issued) = writer.Write(cards.Items, cards.PatientId, cards.Now, reportBase);
                     // The audit record is committed before the answer leaves: no answered card without its record (docs/audit.md).
                     if (!await AuditRecorded(audit, service, document.RootElement, cards, issued, TestTraffic.IsMarked(http), cancellationToken).ConfigureAwait(false))
                     {
                         return Problems.Of(StatusCodes.Status503ServiceUnavailable, "Audit trail unavailable", ["The cards could not be recorded in the audit trail, so none are shown; try again shortly."]);
+                    }
+
+                    foreach (var card in issued.Where(c => c.ReportId is not null))
+                    {
+                        reports.Keep(card.ReportId!, card.Card.Report);
                     }
 
                     RequestLogItems.NoteCards(http.HttpContext, cards.Items);

@@ -22,6 +22,15 @@ public sealed class CardResponseWriter
 
     /// <summary>Builds the response body and the record of what was issued.</summary>
     public (JsonObject Body, IReadOnlyList<IssuedCard> Issued) Write(IReadOnlyList<Card> cards, string patientId, DateTimeOffset now)
+        => Write(cards, patientId, now, reportBaseUrl: null);
+
+    /// <summary>
+    /// Builds the response body and the record of what was issued; with <paramref name="reportBaseUrl"/>, every card with a
+    /// full report links to it (<c>{base}/reports/{id}</c>, a fresh random id per card, kept once the audit is committed).
+    /// Every card with findings also carries them as data in its <c>extension</c> (kinds, certainty, evidence), with the
+    /// full report's Markdown, for integration tooling; an EHR ignores extensions it does not know.
+    /// </summary>
+    public (JsonObject Body, IReadOnlyList<IssuedCard> Issued) Write(IReadOnlyList<Card> cards, string patientId, DateTimeOffset now, string? reportBaseUrl)
     {
         ArgumentNullException.ThrowIfNull(cards);
         var array = new JsonArray();
@@ -56,6 +65,37 @@ public sealed class CardResponseWriter
                 json["selectionBehavior"] = card.SelectionBehavior == SelectionBehavior.AtMostOne ? "at-most-one" : "any";
             }
 
+            string? reportId = null;
+            if (reportBaseUrl is not null && card.Report.Length > 0)
+            {
+                reportId = Reports.CardReports.NewId();
+                json["links"] = new JsonArray(new JsonObject
+                {
+                    ["label"] = ReportLinkLabel,
+                    ["url"] = reportBaseUrl.TrimEnd('/') + "/reports/" + reportId,
+                    ["type"] = "absolute",
+                });
+            }
+
+            if (card.Content is { } content)
+            {
+                json["extension"] = new JsonObject
+                {
+                    [FindingsExtension] = new JsonObject
+                    {
+                        ["findings"] = new JsonArray(content.All()
+                            .Select(f => (JsonNode)new JsonObject
+                            {
+                                ["kind"] = f.Kind,
+                                ["certainty"] = Certainty(f.Certainty),
+                                ["evidence"] = new JsonArray(f.Evidence.Select(e => (JsonNode)JsonValue.Create(e)!).ToArray()),
+                            })
+                            .ToArray()),
+                        ["report"] = card.Report,
+                    },
+                };
+            }
+
             if (card.OverrideReasons.Count > 0)
             {
                 json["overrideReasons"] = new JsonArray(card.OverrideReasons
@@ -64,7 +104,7 @@ public sealed class CardResponseWriter
             }
 
             array.Add(json);
-            issued.Add(new IssuedCard(uuid, card, suggestionUuids));
+            issued.Add(new IssuedCard(uuid, card, suggestionUuids) { ReportId = reportId });
         }
 
         return (new JsonObject { ["cards"] = array }, issued);
@@ -105,6 +145,21 @@ public sealed class CardResponseWriter
 
         return json;
     }
+
+    /// <summary>The label of the link to a card's full report.</summary>
+    public const string ReportLinkLabel = "Full report: reasoning, data used, sources";
+
+    /// <summary>The key of our card extension (findings as data and the full report).</summary>
+    public const string FindingsExtension = "cdsnatremia-findings";
+
+    private static string Certainty(Core.Findings.Certainty certainty) => certainty switch
+    {
+        Core.Findings.Certainty.Likely => "likely",
+        Core.Findings.Certainty.Possible => "possible",
+        Core.Findings.Certainty.Unknown => "unknown",
+        Core.Findings.Certainty.CouldNotBeRead => "could-not-be-read",
+        _ => "established",
+    };
 
     private static string Indicator(CardIndicator indicator) => indicator switch
     {

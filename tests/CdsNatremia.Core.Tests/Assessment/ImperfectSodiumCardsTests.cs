@@ -63,7 +63,7 @@ public class ImperfectSodiumCardsTests
         var card = Assert.Single(Decide(Some.Facts(Some.Sodium(138, 20)) with { SetAside = [unreadable] }));
         Assert.Equal(CardIndicator.Info, card.Indicator);
         Assert.Contains("could not be used", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("plausible range", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("plausible range", card.Report, StringComparison.Ordinal);
         Assert.Contains(card.Suggestions, s => s.Label.Contains("Sodium", StringComparison.Ordinal));
     }
 
@@ -73,7 +73,7 @@ public class ImperfectSodiumCardsTests
         var unreadable = new SetAsideItem("Observation/na-9", "Sodium (unreadable entry)", "it could not be read as FHIR R4", Analyte.Sodium, Some.Now.AddHours(-1));
         var card = Assert.Single(Decide(Some.Facts(Some.Sodium(129, 40), Some.Sodium(136, 20)) with { SetAside = [unreadable] }));
         Assert.Equal(CardIndicator.Warning, card.Indicator);
-        Assert.Contains("Earlier low value", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("Earlier low value", card.Report, StringComparison.Ordinal);
     }
 
     [Theory]
@@ -95,8 +95,8 @@ public class ImperfectSodiumCardsTests
         var card = Assert.Single(Decide(withOther));
         Assert.Equal(clean.Summary, card.Summary);
         Assert.Equal(clean.Indicator, card.Indicator);
-        Assert.Contains("1 resource about another patient was ignored", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("a resource about another patient (not shown)", clean.Detail, StringComparison.Ordinal);
+        Assert.Contains("1 resource about another patient was ignored", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("a resource about another patient (not shown)", clean.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -112,8 +112,8 @@ public class ImperfectSodiumCardsTests
     public void Decide_HistoryUnavailable_SaysWhichChecksCouldNotBeMade()
     {
         var card = Assert.Single(Decide(Some.Facts(Some.Sodium(124, 1)) with { SodiumHistoryUnavailable = "prefetch 'sodium' was not sent" }));
-        Assert.Contains("**onset**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("**correction rate**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("**drug timing**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**onset**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("**correction rate**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("**drug timing**", card.Report, StringComparison.Ordinal);
     }
 }

@@ -44,7 +44,7 @@ public class SodiumAssessmentCardProducerTests
     public void Decide_StaleResult_LabelledAndRecheckSuggested()
     {
         var card = Assert.Single(Some.Engine().Decide(Some.Request(Some.Facts(Some.Sodium(128, hoursAgo: 80)))));
-        Assert.Contains("**stale**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**stale**", card.Report, StringComparison.Ordinal);
         var suggestion = Assert.Single(card.Suggestions, s => s.Actions[0].Create!.LoincCode == "2951-2"); // LOINC 2951-2 serum/plasma sodium, reference sheet
         Assert.Contains("stale", card.Summary, StringComparison.Ordinal);
     }
@@ -53,7 +53,7 @@ public class SodiumAssessmentCardProducerTests
     public void Decide_ResultJustInsideStaleWindow_NotStale()
     {
         var card = Assert.Single(Some.Engine().Decide(Some.Request(Some.Facts(Some.Sodium(128, hoursAgo: 71.9)))));
-        Assert.DoesNotContain("**stale**", card.Detail, StringComparison.Ordinal);
+        Assert.DoesNotContain("**stale**", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -61,7 +61,7 @@ public class SodiumAssessmentCardProducerTests
     {
         var card = Assert.Single(Some.Engine().Decide(Some.Request(Some.Facts(Some.Sodium(130, preliminary: true)))));
         Assert.Contains("preliminary", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("**preliminary**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**preliminary**", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -74,7 +74,7 @@ public class SodiumAssessmentCardProducerTests
         var card = Assert.Single(Some.Engine().Decide(Some.Request(facts)));
         Assert.Equal(CardIndicator.Info, card.Indicator);
         Assert.Contains("no assessment", card.Summary, StringComparison.OrdinalIgnoreCase);
-        Assert.Contains("unit 'mg/dL' is not accepted", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("unit 'mg/dL' is not accepted", card.Report, StringComparison.Ordinal);
     }
 
     [Theory]
@@ -90,7 +90,7 @@ public class SodiumAssessmentCardProducerTests
             Assert.True(card.Summary.Length < 140, card.Summary);
             foreach (var caution in SafetyCautions.All)
             {
-                Assert.Contains(caution, card.Detail, StringComparison.Ordinal);
+                Assert.Contains(caution, card.Report, StringComparison.Ordinal);
             }
         }
     }

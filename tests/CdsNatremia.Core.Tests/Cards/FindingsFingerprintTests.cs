@@ -43,8 +43,8 @@ public class FindingsFingerprintTests
         Assert.Equal(CardIndicator.Info, quiet.Indicator);
         Assert.StartsWith("Last reviewed 3 h ago: ", quiet.Summary, StringComparison.Ordinal);
         Assert.InRange(quiet.Summary.Length, 1, Summary.MaxLength);
-        Assert.Contains("last reviewed 2026-03-10 09:00 UTC (3 h ago)", quiet.Detail, StringComparison.Ordinal);
-        Assert.EndsWith(card.Detail, quiet.Detail, StringComparison.Ordinal); // the advice itself is still all there
+        Assert.Contains("**Already reviewed** 2026-03-10 09:00 UTC (3 h ago)", quiet.Report, StringComparison.Ordinal);
+        Assert.EndsWith(card.Report, quiet.Report, StringComparison.Ordinal); // the advice itself is still all there
         Assert.Equal(card.Fingerprint, quiet.Fingerprint);
     }
 }

@@ -51,9 +51,9 @@ public class FurstRatioTests
     {
         // (110 + 40) / 124 = 1.21 > 1: fluid restriction unlikely to work (Furst et al. 2000).
         var card = SomeClinical.Assessment(Some.Facts([.. SiadhLike(110, 40)]));
-        Assert.Contains("(urine sodium 110 + urine potassium 40) / serum sodium 124 = **1.21**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("**fluid restriction is unlikely to work**", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("fluid restriction is the usual first step;", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("(urine sodium 110 + urine potassium 40) / serum sodium 124 = **1.21**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("**fluid restriction is unlikely to work**", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("fluid restriction is the usual first step;", card.Report, StringComparison.Ordinal);
         Assert.Contains("Observation/uk", card.ResourcesUsed);
     }
 
@@ -63,8 +63,8 @@ public class FurstRatioTests
         // All SIADH essential criteria met on the data (TSH 2 mIU/L within 0.4–4.0, cortisol 400 nmol/L ≥ 138; from memory
         // defaults): the advice replaces "fluid restriction is the usual first step" with the Furst ratio's verdict.
         var card = SomeClinical.Assessment(Some.Facts([.. SiadhLike(110, 40), Some.Lab(Analyte.Thyrotropin, 2, 2), Some.Lab(Analyte.Cortisol, 400, 2)]));
-        Assert.Contains("If SIADH is confirmed, the Furst ratio of 1.21 says whether fluid restriction will work", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("fluid restriction is the usual first step", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("If SIADH is confirmed, the Furst ratio of 1.21 says whether fluid restriction will work", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("fluid restriction is the usual first step", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -72,8 +72,8 @@ public class FurstRatioTests
     {
         // (60 + 20) / 124 = 0.65: stricter restriction (Furst et al. 2000).
         var card = SomeClinical.Assessment(Some.Facts([.. SiadhLike(60, 20)]));
-        Assert.Contains("= **0.65**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("**stricter fluid restriction**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("= **0.65**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("**stricter fluid restriction**", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -81,8 +81,8 @@ public class FurstRatioTests
     {
         // (40 + 10) / 124 = 0.4: the usual restriction (Furst et al. 2000).
         var card = SomeClinical.Assessment(Some.Facts([.. SiadhLike(40, 10)]));
-        Assert.Contains("= **0.4**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("the **usual fluid restriction** can be expected to work", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("= **0.4**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("the **usual fluid restriction** can be expected to work", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -90,9 +90,9 @@ public class FurstRatioTests
     {
         // 60 / 124 = 0.48 without potassium: only a lower bound, so no restriction advice from it.
         var card = SomeClinical.Assessment(Some.Facts([.. SiadhLike(60, null)]));
-        Assert.Contains("urine sodium 60 / serum sodium 124 = **0.48** without urine potassium", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("urine potassium is needed", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("Furst ratio 0.48:", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("urine sodium 60 / serum sodium 124 = **0.48** without urine potassium", card.Report, StringComparison.Ordinal);
+        Assert.Contains("urine potassium is needed", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("Furst ratio 0.48:", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -100,7 +100,7 @@ public class FurstRatioTests
     {
         // 130 / 124 = 1.05 > 1 before potassium is added (it can only raise the ratio).
         var card = SomeClinical.Assessment(Some.Facts([.. SiadhLike(130, null)]));
-        Assert.Contains("**fluid restriction is unlikely to work**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**fluid restriction is unlikely to work**", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -109,6 +109,6 @@ public class FurstRatioTests
         // Urine ≤ 100 mOsm/kg (2014 European guideline): the kidney is excreting water; the ratio does not apply.
         var labs = SiadhLike(20, 10);
         labs[4] = Some.Lab(Analyte.UrineOsmolality, 80, 2);
-        Assert.DoesNotContain("Furst ratio", SomeClinical.Assessment(Some.Facts([.. labs])).Detail, StringComparison.Ordinal);
+        Assert.DoesNotContain("Furst ratio", SomeClinical.Assessment(Some.Facts([.. labs])).Report, StringComparison.Ordinal);
     }
 }

@@ -26,9 +26,9 @@ public class HypertonicSummaryTests
         Assert.Contains("with osmolality 318 mOsm/kg", card.Summary, StringComparison.Ordinal);
         Assert.Contains("likely mannitol", card.Summary, StringComparison.Ordinal);
         Assert.Equal(CardIndicator.Warning, card.Indicator);
-        Assert.Contains("**Findings**\n\n- This is **not hypotonic hyponatremia** (osmolality 318 mOsm/kg): the likely osmole is **mannitol**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**Findings**\n\n- This is **not hypotonic hyponatremia** (osmolality 318 mOsm/kg): the likely osmole is **mannitol**", card.Report, StringComparison.Ordinal);
         Assert.Contains("MedicationStatement/mannitol", card.ResourcesUsed);
-        Assert.DoesNotContain("high risk of osmotic demyelination**", card.Detail, StringComparison.Ordinal);
+        Assert.DoesNotContain("high risk of osmotic demyelination**", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -62,7 +62,7 @@ public class HypertonicSummaryTests
         var facts = Some.Facts(Some.Sodium(118, 2), Some.Lab(Analyte.SerumOsmolality, 288, 2), Some.Lab(Analyte.Glucose, 5, 2), Some.Lab(Analyte.Urea, 5, 2));
         var card = SomeClinical.Assessment(facts);
         Assert.StartsWith("Sodium 118 mmol/L (profound hyponatremia", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("pseudohyponatremia", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("pseudohyponatremia", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -81,7 +81,7 @@ public class HypertonicSummaryTests
         var facts = Some.Facts(Some.Sodium(124, 2)) with { Medications = [Mannitol()] };
         var card = SomeClinical.Assessment(facts);
         Assert.Contains("mannitol in the record: measure osmolality before treating", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("**An osmole is in the record**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**An osmole is in the record**", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -1,3 +1,4 @@
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Sodium;
@@ -17,28 +18,33 @@ public class PaediatricTests
     public void Apply_AgeAroundTheAdultEdge_ChildCautionOnlyUnder18(int age, bool child)
     {
         var card = SomeClinical.Assessment(SomeClinical.Woman(age, Some.Sodium(127, 2)));
-        Assert.Equal(child, card.Detail.Contains(ChildCaution, StringComparison.Ordinal));
+        Assert.Equal(child, card.Report.Contains(ChildCaution, StringComparison.Ordinal));
         Assert.Equal(child, card.Summary.Contains("adult limits may not apply", StringComparison.Ordinal));
     }
 
     [Fact]
-    public void Apply_ChildCautionIsTheFirstFinding()
+    public void Apply_ChildCautionIsTheFirstCautionOnTheShortCard()
     {
+        // A decision, not wording: the child caution leads the card's patient-specific cautions (added by the engine, so
+        // every card kind carries it) and the report keeps the full adult-guideline caveat.
         var card = SomeClinical.Assessment(SomeClinical.Woman(9, Some.Sodium(122, 2)));
-        var findings = card.Detail.IndexOf("**Findings**", StringComparison.Ordinal);
-        Assert.Equal(findings, card.Detail.IndexOf("**Findings**\n\n- **This patient is a child (9 years old, under 18)**", StringComparison.Ordinal));
+        var caution = card.Content!.Cautions[0];
+        Assert.Equal(FindingKind.PaediatricCautionShort, caution.Kind);
+        Assert.Equal(new NumberValue(9, 0), caution["age"]);
+        Assert.Contains("**Caution:** Child (9 years)", card.Detail, StringComparison.Ordinal);
+        Assert.Contains(card.Content.Steps, f => f.Kind == FindingKind.PaediatricCaution);
     }
 
     [Fact]
     public void Apply_AdultAgeConfiguredAt16_SeventeenIsAnAdult()
     {
         var options = new RuleOptions { Severity = new SeverityOptions { AdultFromAgeYears = 16 } };
-        Assert.DoesNotContain(ChildCaution, SomeClinical.Assessment(SomeClinical.Woman(17, Some.Sodium(127, 2)), options).Detail, StringComparison.Ordinal);
+        Assert.DoesNotContain(ChildCaution, SomeClinical.Assessment(SomeClinical.Woman(17, Some.Sodium(127, 2)), options).Report, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Apply_UnknownBirthDate_NoChildCaution()
-        => Assert.DoesNotContain(ChildCaution, SomeClinical.Assessment(Some.Facts(Some.Sodium(127, 2))).Detail, StringComparison.Ordinal);
+        => Assert.DoesNotContain(ChildCaution, SomeClinical.Assessment(Some.Facts(Some.Sodium(127, 2))).Report, StringComparison.Ordinal);
 
     [Fact]
     public void Produce_ChildOnEveryCardKindThatGivesLimits_CautionInEachCard()
@@ -55,6 +61,6 @@ public class PaediatricTests
         ]);
         var topics = rate.Concat(orders).Select(c => c.Topic).ToHashSet();
         Assert.Superset(new HashSet<string> { "sodium-assessment", "correction-rate", "infusion-prediction", "rate-caution-order", "drug-order-warning" }, topics);
-        Assert.All(rate.Concat(orders), c => Assert.Contains(ChildCaution, c.Detail, StringComparison.Ordinal));
+        Assert.All(rate.Concat(orders), c => Assert.Contains(ChildCaution, c.Report, StringComparison.Ordinal));
     }
 }

@@ -35,7 +35,7 @@ public partial class CorruptedInputPropertyTests
             cards.Count == 0 ? 1 : 0,
             cards.Count == 0 ? 0 : -(int)cards.Max(c => c.Indicator),
             -cards.Count,
-            cards.Sum(c => ReassuringClaim().Count(c.Detail)));
+            cards.Sum(c => ReassuringClaim().Count(c.Report)));
     }
 
     [GeneratedRegex(@": \*\*met\*\*|consistent with SIADH|within the limit|none found in the record|the usual limits apply")]
@@ -98,7 +98,7 @@ public partial class CorruptedInputPropertyTests
     [Fact]
     public void Reassurance_Order_SilenceThenIndicatorThenCountThenClaims()
     {
-        Card Make(CardIndicator indicator, string detail = "") => new() { Summary = "s", Indicator = indicator, Detail = detail, Topic = "t", RuleIds = [] };
+        Card Make(CardIndicator indicator, string detail = "") => new() { Summary = "s", Indicator = indicator, Report = detail, Topic = "t", RuleIds = [] };
         var silent = Reassurance.Of([]);
         var info = Reassurance.Of([Make(CardIndicator.Info)]);
         var infoWithClaim = Reassurance.Of([Make(CardIndicator.Info, "(1) No recent diuretic use: **met**: none.")]);

@@ -38,7 +38,7 @@ public class ClinicalNumberTests
 
     private static string InfusionDetail(PatientFacts facts, string order = "sodium chloride 0.9%", double millilitres = 1000)
         => Assert.Single(SomeClinical.Decide(facts, HookKind.OrderSign, [SomeClinical.Draft("o", order, millilitres, "intravenous")]),
-            c => c.Topic == InfusionPredictionCardProducer.Topic).Detail;
+            c => c.Topic == InfusionPredictionCardProducer.Topic).Report;
 
     [Fact]
     public void BodyWater_WomanOf75_FractionPrintedAs045NotAs05()
@@ -73,7 +73,7 @@ public class ClinicalNumberTests
         // Glucose 25.55 mmol/L × 18.016 = 460.3 mg/dL (one decimal, then used): Katz 124 + 1.6 × 3.603 = 129.8;
         // Hillier 124 + 2.4 × 3.603 = 132.6 (Katz 1973; Hillier et al. 1999).
         var facts = Some.Facts(Some.Sodium(124, 2), Some.Lab(Analyte.SerumOsmolality, 300, 2), Some.Lab(Analyte.Glucose, 25.55, 2), Some.Lab(Analyte.Urea, 5, 2));
-        var detail = SomeClinical.Assessment(facts).Detail;
+        var detail = SomeClinical.Assessment(facts).Report;
         Assert.Contains("= 460.3 mg/dL. Katz (1.6 mmol/L per 100 mg/dL above 100): 124 + 1.6 × (460.3 − 100)/100 = **129.8 mmol/L**", detail, StringComparison.Ordinal);
         Assert.Contains("Hillier (2.4 per 100 mg/dL above 100): **132.6 mmol/L**", detail, StringComparison.Ordinal);
     }
@@ -83,7 +83,7 @@ public class ClinicalNumberTests
     {
         // 2 × 124 + 5.55 + 3.25 = 256.8 mOsm/kg (reference sheet formula, SI units).
         var facts = Some.Facts(Some.Sodium(124, 2), Some.Lab(Analyte.Glucose, 5.55, 2), Some.Lab(Analyte.Urea, 3.25, 2));
-        Assert.Contains("256.8 mOsm/kg (SI units: 2 × 124 + glucose 5.55 + urea 3.25 mmol/L", SomeClinical.Assessment(facts).Detail, StringComparison.Ordinal);
+        Assert.Contains("256.8 mOsm/kg (SI units: 2 × 124 + glucose 5.55 + urea 3.25 mmol/L", SomeClinical.Assessment(facts).Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -92,7 +92,7 @@ public class ClinicalNumberTests
         // (70 + 22.5) / 124 = 0.746 → 0.75 (Furst et al. 2000 formula).
         var facts = Some.Facts(Some.Sodium(124, 2), Some.Lab(Analyte.SerumOsmolality, 255, 2), Some.Lab(Analyte.UrineOsmolality, 400, 2),
             Some.Lab(Analyte.UrineSodium, 70, 2), Some.Lab(Analyte.UrinePotassium, 22.5, 2));
-        Assert.Contains("(urine sodium 70 + urine potassium 22.5) / serum sodium 124 = **0.75**", SomeClinical.Assessment(facts).Detail, StringComparison.Ordinal);
+        Assert.Contains("(urine sodium 70 + urine potassium 22.5) / serum sodium 124 = **0.75**", SomeClinical.Assessment(facts).Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -100,8 +100,8 @@ public class ClinicalNumberTests
     {
         // 3.45 < 3.5 (common practice lower limit): the card printed "3.5 … below … 3.5" before.
         var card = SomeClinical.Assessment(Some.Facts(Some.Sodium(122, 2), Some.Lab(Analyte.Potassium, 3.45, 2)));
-        Assert.Contains("low potassium: 3.45 mmol/L", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("of 3.5 mmol/L", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("low potassium: 3.45 mmol/L", card.Report, StringComparison.Ordinal);
+        Assert.Contains("of 3.5 mmol/L", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -112,7 +112,7 @@ public class ClinicalNumberTests
         var facts = Some.Facts(Some.Sodium(104, 20), Some.Sodium(111, 1));
         var cards = SomeClinical.Decide(facts, options: options);
         var rate = Assert.Single(cards, c => c.Topic == CorrectionRateCardProducer.Topic);
-        Assert.Contains("7.25 mmol/L in any 24 h", rate.Detail, StringComparison.Ordinal);
-        Assert.Contains("no more than 7.25 mmol/L in any 24 h", Assert.Single(cards, c => c.Topic == "sodium-assessment").Detail, StringComparison.Ordinal);
+        Assert.Contains("7.25 mmol/L in any 24 h", rate.Report, StringComparison.Ordinal);
+        Assert.Contains("no more than 7.25 mmol/L in any 24 h", Assert.Single(cards, c => c.Topic == "sodium-assessment").Report, StringComparison.Ordinal);
     }
 }

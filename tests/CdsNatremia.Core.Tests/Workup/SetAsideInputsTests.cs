@@ -1,3 +1,6 @@
+using CdsNatremia.Core.Findings;
+using CdsNatremia.Core.Rendering;
+using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Tests.Support;
@@ -15,8 +18,10 @@ public class SetAsideInputsTests
     {
         var context = new DecisionContext(Some.Request(facts), new RuleOptions(), WorkupTestData.Knowledge);
         var criteria = SiadhChecklistRule.Evaluate(context, TonicityAssessment.From(context), UrineStudies.From(context));
-        return criteria.Single(c => c.Name.StartsWith(startsWith, StringComparison.Ordinal));
+        return criteria.Single(c => Said(c.Name).StartsWith(startsWith, StringComparison.Ordinal));
     }
+
+    private static string Said(Finding finding) => PhraseCatalogue.Default.Render(finding, TimeDisplay.Utc(Some.Now));
 
     private static PatientFacts Facts(params MedicationFact[] medications)
         => Some.Facts([.. WorkupTestData.Hypotonic()]) with { Medications = medications };
@@ -41,8 +46,9 @@ public class SetAsideInputsTests
         };
         var criterion = Criterion(Facts(unreadable), "No recent diuretic");
         Assert.Equal(CriterionStatus.CouldNotBeRead, criterion.Status);
-        Assert.Equal("unknown (could not be read)", criterion.StatusText);
-        Assert.Contains("Blood-pressure combination tablet", criterion.Data, StringComparison.Ordinal);
+        Assert.Equal(FindingKind.SiadhStatusCouldNotBeRead, criterion.StatusKind);
+        Assert.Equal(Certainty.CouldNotBeRead, criterion.Data.Certainty);
+        Assert.Equal(new TextValue("Blood-pressure combination tablet", Escape: true), criterion.Data["text"]);
     }
 
     [Fact]
@@ -77,7 +83,7 @@ public class SetAsideInputsTests
         var facts = Facts() with { SetAside = [new SetAsideItem("Observation/tsh-1", "TSH 2 mg", "unit 'mg' is not accepted", Analyte.Thyrotropin, Some.Now.AddHours(-3))] };
         var criterion = Criterion(facts, "Normal thyroid");
         Assert.Equal(CriterionStatus.CouldNotBeRead, criterion.Status);
-        Assert.Contains("Observation/tsh-1", criterion.Data, StringComparison.Ordinal);
+        Assert.Contains("Observation/tsh-1", Said(criterion.Data), StringComparison.Ordinal);
     }
 
     // 2014 European guideline: urine sodium > 30 mmol/L; a report of "< 20" decides "not above 30".
@@ -101,11 +107,11 @@ public class SetAsideInputsTests
             Some.Lab(Analyte.Thyrotropin, 2.1, 2), Some.Lab(Analyte.Cortisol, 420, 2),
         ]);
         var card = WorkupTestData.Card(Some.Facts([.. labs]) with { Medications = [unreadable] });
-        Assert.DoesNotContain("consistent with SIADH", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("diuretic use: **unknown** (could not be read", card.Detail, StringComparison.Ordinal);
+        Assert.DoesNotContain("consistent with SIADH", card.Report, StringComparison.Ordinal);
+        Assert.Contains("diuretic use: **unknown** (could not be read", card.Report, StringComparison.Ordinal);
         // The SIADH line says once that the criterion could not be read, then names the item.
-        Assert.Contains("No recent diuretic use: **unknown (could not be read)**: MedicationStatement/combo", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("could not be read)**: could not be read", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("No recent diuretic use: **unknown (could not be read)**: MedicationStatement/combo", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("could not be read)**: could not be read", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -113,15 +119,15 @@ public class SetAsideInputsTests
     {
         var facts = Facts() with { SetAside = [new SetAsideItem("Observation/uosm-9", "Urine osmolality 400 mg", "unit 'mg' is not accepted", Analyte.UrineOsmolality, Some.Now.AddHours(-1))] };
         var card = WorkupTestData.Card(facts);
-        Assert.Contains("**Urine osmolality**: **unknown** (could not be read: urine osmolality Observation/uosm-9", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("(2) Urine osmolality > 100 mOsm/kg: **unknown (could not be read)**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**Urine osmolality**: **unknown** (could not be read: urine osmolality Observation/uosm-9", card.Report, StringComparison.Ordinal);
+        Assert.Contains("(2) Urine osmolality > 100 mOsm/kg: **unknown (could not be read)**", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Card_ThiazideStoppedFourDaysAgo_ListedRecentlyStoppedAsPossibleNeverLikely()
     {
         var card = WorkupTestData.Card(Facts() with { StoppedMedications = [Stopped(4)] });
-        Assert.Contains("diuretic recently stopped", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("likely contributor", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("diuretic recently stopped", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("likely contributor", card.Report, StringComparison.Ordinal);
     }
 }

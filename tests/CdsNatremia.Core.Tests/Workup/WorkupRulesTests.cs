@@ -24,17 +24,17 @@ public class WorkupRulesTests
     public void Tonicity_Measured_HypotonicWithMethodAndEffective()
     {
         var card = Card(Facts(Hypotonic()));
-        Assert.Contains("**hypotonic**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("measured osmolality, the preferred method", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("262 − urea 3.6 = 258.4 mOsm/kg", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**hypotonic**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("measured osmolality, the preferred method", card.Report, StringComparison.Ordinal);
+        Assert.Contains("262 − urea 3.6 = 258.4 mOsm/kg", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Tonicity_OnlyCalculated_SaysItCannotExcludeArtefactAndRecommendsMeasured()
     {
         var card = Card(Facts([Some.Sodium(124), Lab(Analyte.Glucose, 5.8), Lab(Analyte.Urea, 5.7)]));
-        Assert.Contains("259.5 mOsm/kg (SI units: 2 × 124 + glucose 5.8 + urea 5.7 mmol/L", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("cannot exclude a falsely low sodium", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("259.5 mOsm/kg (SI units: 2 × 124 + glucose 5.8 + urea 5.7 mmol/L", card.Report, StringComparison.Ordinal);
+        Assert.Contains("cannot exclude a falsely low sodium", card.Report, StringComparison.Ordinal);
         Assert.True(Suggestion(card, "2692-2").IsRecommended); // LOINC 2692-2 serum osmolality (reference sheet)
     }
 
@@ -42,7 +42,7 @@ public class WorkupRulesTests
     public void Tonicity_GlucoseOutsidePairingWindow_NotUsed()
     {
         var card = Card(Facts([Some.Sodium(124, hoursAgo: 1), Lab(Analyte.Glucose, 5.8, hoursAgo: 13.1), Lab(Analyte.Urea, 5.7, hoursAgo: 1)]));
-        Assert.Contains("**unknown**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**unknown**", card.Report, StringComparison.Ordinal);
         Assert.True(Suggestion(card, "2345-7").IsRecommended); // LOINC 2345-7 glucose (reference sheet)
     }
 
@@ -51,13 +51,13 @@ public class WorkupRulesTests
     {
         // Scenario-05-like patient: Na 128, glucose 650 mg/dL, measured osmolality 305 → Katz 136.8, Hillier 141.2 (Katz 1973; Hillier 1999).
         var card = Card(Facts([Some.Sodium(128), Lab(Analyte.SerumOsmolality, 305), Lab(Analyte.Glucose, 650 / 18.016), Lab(Analyte.Urea, 28 / 2.8014)]));
-        Assert.Contains("**hypertonic**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("**136.8 mmol/L**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("**141.2 mmol/L**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("not hypotonic hyponatremia", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**hypertonic**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("**136.8 mmol/L**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("**141.2 mmol/L**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("not hypotonic hyponatremia", card.Report, StringComparison.Ordinal);
         Assert.Contains("corrected sodium 141.2 mmol/L (Hillier)", card.Summary, StringComparison.Ordinal);
         Assert.Equal(CardIndicator.Warning, card.Indicator); // band indicator kept (moderate → warning)
-        Assert.DoesNotContain("**SIADH essential criteria**", card.Detail, StringComparison.Ordinal);
+        Assert.DoesNotContain("**SIADH essential criteria**", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -72,7 +72,7 @@ public class WorkupRulesTests
     public void Hypertonic_NormalGlucose_OtherOsmolesNamed()
     {
         var card = Card(Facts([Some.Sodium(128), Lab(Analyte.SerumOsmolality, 310), Lab(Analyte.Glucose, 5.5), Lab(Analyte.Urea, 5)]));
-        Assert.Contains("**mannitol**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**mannitol**", card.Report, StringComparison.Ordinal);
         // Issue 13 (11): a hypertonic low sodium opens with "Not hypotonic" and asks for another osmole (common practice).
         Assert.StartsWith("Not hypotonic: sodium 128 mmol/L (moderate range", card.Summary, StringComparison.Ordinal);
         Assert.Contains("look for another osmole", card.Summary, StringComparison.Ordinal);
@@ -82,9 +82,9 @@ public class WorkupRulesTests
     public void Isotonic_HighTriglyceride_PseudohyponatremiaWithDirectSodiumAndNoTreatment()
     {
         var card = Card(Facts([Some.Sodium(129), Lab(Analyte.SerumOsmolality, 288), Lab(Analyte.Glucose, 6.1), Lab(Analyte.Urea, 5), Lab(Analyte.Triglyceride, 39.5)]));
-        Assert.Contains("**isotonic**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("**pseudohyponatremia** with very high triglycerides", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("no sodium treatment is indicated", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**isotonic**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("**pseudohyponatremia** with very high triglycerides", card.Report, StringComparison.Ordinal);
+        Assert.Contains("no sodium treatment is indicated", card.Report, StringComparison.Ordinal);
         Assert.True(Suggestion(card, "2947-0").IsRecommended); // LOINC 2947-0 sodium in blood (reference sheet)
         Assert.False(Suggestion(card, "2885-2").IsRecommended); // total protein missing: offered, not recommended
         Assert.DoesNotContain(card.Suggestions, s => s.Actions[0].Create!.LoincCode == "2955-3"); // urine studies not read when isotonic
@@ -98,8 +98,8 @@ public class WorkupRulesTests
     {
         var bloodGas = Some.Sodium(bloodGasSodium, hoursAgo: 2.5, specimen: SpecimenKind.ArterialBlood);
         var card = Card(Facts([Some.Sodium(129), bloodGas, Lab(Analyte.SerumOsmolality, 288), Lab(Analyte.Glucose, 6.1), Lab(Analyte.Urea, 5)]));
-        Assert.Equal(artefact, card.Detail.Contains("which supports an artefact", StringComparison.Ordinal));
-        Assert.Equal(!artefact, card.Detail.Contains("the low sodium is **real**", StringComparison.Ordinal));
+        Assert.Equal(artefact, card.Report.Contains("which supports an artefact", StringComparison.Ordinal));
+        Assert.Equal(!artefact, card.Report.Contains("the low sodium is **real**", StringComparison.Ordinal));
         Assert.DoesNotContain(card.Suggestions, s => s.Actions[0].Create!.LoincCode == "2947-0"); // already measured: not offered again
     }
 
@@ -112,8 +112,8 @@ public class WorkupRulesTests
     {
         // The low value is 2 h old; the normal one is hoursBetween before now, so less than that before the low value.
         var card = Card(Facts([.. Hypotonic(), Some.Sodium(140, hoursAgo: hoursBetween)]));
-        Assert.Equal(acute, card.Detail.Contains("**acute**", StringComparison.Ordinal));
-        Assert.Equal(!acute, card.Detail.Contains("**chronic or of unknown duration**", StringComparison.Ordinal));
+        Assert.Equal(acute, card.Report.Contains("**acute**", StringComparison.Ordinal));
+        Assert.Equal(!acute, card.Report.Contains("**chronic or of unknown duration**", StringComparison.Ordinal));
     }
 
     [Fact]
@@ -122,8 +122,8 @@ public class WorkupRulesTests
         // 2014 European guideline: chronic when it has lasted ≥ 48 h (reference sheet). Normal 30 h before the low value,
         // but the low value is 20 h old: the low sodium may have lasted 50 h by now.
         var card = Card(Facts([.. Hypotonic(hoursAgo: 20), Some.Sodium(140, hoursAgo: 50)]));
-        Assert.Contains("**chronic or of unknown duration**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("before this assessment", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**chronic or of unknown duration**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("before this assessment", card.Report, StringComparison.Ordinal);
     }
 
     [Theory]
@@ -133,7 +133,7 @@ public class WorkupRulesTests
     public void Onset_NormalBloodGasBesideLowLaboratoryValue_NotReadAsAFallWithinPairingWindow(double hoursBefore, bool acute)
     {
         var card = Card(Facts([.. Hypotonic(), Some.Sodium(139, hoursAgo: 2 + hoursBefore, specimen: SpecimenKind.VenousBlood)]));
-        Assert.Equal(acute, card.Detail.Contains("so **acute** hyponatremia", StringComparison.Ordinal));
+        Assert.Equal(acute, card.Report.Contains("so **acute** hyponatremia", StringComparison.Ordinal));
     }
 
     [Fact]
@@ -147,7 +147,7 @@ public class WorkupRulesTests
     public void Onset_LowValueBetween_UsesTheLastNormal()
     {
         var card = Card(Facts([.. Hypotonic(), Some.Sodium(131, hoursAgo: 20), Some.Sodium(140, hoursAgo: 70)]));
-        Assert.Contains("**chronic or of unknown duration**", card.Detail, StringComparison.Ordinal); // last normal 68 h before
+        Assert.Contains("**chronic or of unknown duration**", card.Report, StringComparison.Ordinal); // last normal 68 h before
     }
 
     [Theory]
@@ -157,8 +157,8 @@ public class WorkupRulesTests
     public void Urine_OsmolalityBoundary(double urineOsmolality, bool dilute)
     {
         var card = Card(Facts([.. Hypotonic(), Lab(Analyte.UrineOsmolality, urineOsmolality), Lab(Analyte.UrineSodium, 50)]));
-        Assert.Equal(dilute, card.Detail.Contains("**relative excess water intake**", StringComparison.Ordinal));
-        Assert.Equal(!dilute, card.Detail.Contains("is above 30 mmol/L", StringComparison.Ordinal)); // urine sodium read only when not dilute
+        Assert.Equal(dilute, card.Report.Contains("**relative excess water intake**", StringComparison.Ordinal));
+        Assert.Equal(!dilute, card.Report.Contains("is above 30 mmol/L", StringComparison.Ordinal)); // urine sodium read only when not dilute
     }
 
     [Theory]
@@ -168,8 +168,8 @@ public class WorkupRulesTests
     public void Urine_SodiumBoundary(double urineSodium, bool low)
     {
         var card = Card(Facts([.. Hypotonic(), Lab(Analyte.UrineOsmolality, 400), Lab(Analyte.UrineSodium, urineSodium)]));
-        Assert.Equal(low, card.Detail.Contains("**low effective arterial blood volume**", StringComparison.Ordinal));
-        Assert.Equal(!low, card.Detail.Contains("SIADH, adrenal insufficiency, hypothyroidism, cerebral or renal salt wasting", StringComparison.Ordinal));
+        Assert.Equal(low, card.Report.Contains("**low effective arterial blood volume**", StringComparison.Ordinal));
+        Assert.Equal(!low, card.Report.Contains("SIADH, adrenal insufficiency, hypothyroidism, cerebral or renal salt wasting", StringComparison.Ordinal));
     }
 
     [Theory]
@@ -180,34 +180,34 @@ public class WorkupRulesTests
     {
         var labs = Hypotonic().Select(l => l with { EffectiveAt = Some.Now.AddHours(-20) }).ToList();
         var card = Card(Facts([.. labs, Lab(Analyte.UrineOsmolality, 400, hoursAgo: 20 - hoursAfter), Lab(Analyte.UrineSodium, 50, hoursAgo: 20 - hoursAfter)]));
-        Assert.Equal(labelled, card.Detail.Contains("the serum sodium**, more than 12 h apart", StringComparison.Ordinal));
+        Assert.Equal(labelled, card.Report.Contains("the serum sodium**, more than 12 h apart", StringComparison.Ordinal));
     }
 
     [Fact]
     public void Urine_TakenAfterDiureticStarted_LabelledAndNotReadAsSiadh()
     {
         var card = Card(Facts([.. Hypotonic(), Lab(Analyte.UrineOsmolality, 400), Lab(Analyte.UrineSodium, 50)], [Hydrochlorothiazide(Some.Now.AddDays(-21))]));
-        Assert.Contains("**taken while a diuretic was in use**: hydrochlorothiazide", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("**cannot be read**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("(7) No recent diuretic use: **not met**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**taken while a diuretic was in use**: hydrochlorothiazide", card.Report, StringComparison.Ordinal);
+        Assert.Contains("**cannot be read**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("(7) No recent diuretic use: **not met**", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Urine_TakenBeforeDiureticStarted_NotLabelled()
     {
         var card = Card(Facts([.. Hypotonic(), Lab(Analyte.UrineOsmolality, 400), Lab(Analyte.UrineSodium, 50)], [Hydrochlorothiazide(Some.Now.AddHours(-1))]));
-        Assert.DoesNotContain("taken while a diuretic was in use", card.Detail, StringComparison.Ordinal);
+        Assert.DoesNotContain("taken while a diuretic was in use", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
     public void VolumeClues_ConditionAndDiureticListed_NoVolumeStatusClaimed()
     {
         var card = Card(Facts(Hypotonic(), [Hydrochlorothiazide(Some.Now.AddDays(-30))], [HeartFailure()]));
-        Assert.Contains("heart failure (Condition/hf", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("diuretic in use: hydrochlorothiazide", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("does **not** decide the volume status", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("If **high volume**", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("patient is hypervolaemic", card.Detail, StringComparison.OrdinalIgnoreCase);
+        Assert.Contains("heart failure (Condition/hf", card.Report, StringComparison.Ordinal);
+        Assert.Contains("diuretic in use: hydrochlorothiazide", card.Report, StringComparison.Ordinal);
+        Assert.Contains("does **not** decide the volume status", card.Report, StringComparison.Ordinal);
+        Assert.Contains("If **high volume**", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("patient is hypervolaemic", card.Report, StringComparison.OrdinalIgnoreCase);
     }
 
     [Fact]
@@ -215,9 +215,9 @@ public class WorkupRulesTests
     {
         var card = Card(Facts([.. Hypotonic(), Lab(Analyte.UrineOsmolality, 480), Lab(Analyte.UrineSodium, 62),
             Lab(Analyte.Thyrotropin, 2.1, hoursAgo: 28), Lab(Analyte.Cortisol, 408, hoursAgo: 28)]));
-        Assert.Contains("6 met, 0 not met, 0 unknown", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("**consistent with SIADH**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("(4) Clinical euvolaemia: **for the clinician to assess**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("6 met, 0 not met, 0 unknown", card.Report, StringComparison.Ordinal);
+        Assert.Contains("**consistent with SIADH**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("(4) Clinical euvolaemia: **for the clinician to assess**", card.Report, StringComparison.Ordinal);
         Assert.DoesNotContain(card.Suggestions, s => s.Actions[0].Create!.LoincCode is "3016-3" or "2143-6");
     }
 
@@ -235,7 +235,7 @@ public class WorkupRulesTests
         var glucose = Lab(Analyte.Glucose, 5.8) with { OriginalUnit = "mg/dL", LoincCode = "2345-7" };
         var bun = Lab(Analyte.Urea, 5.7) with { OriginalUnit = "mg/dL", LoincCode = "3094-0" };
         var card = Card(Facts([Some.Sodium(124), glucose, bun]));
-        Assert.Contains("(SI units: 2 × 124", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("(SI units: 2 × 124", card.Report, StringComparison.Ordinal);
     }
 
     [Theory]
@@ -246,7 +246,7 @@ public class WorkupRulesTests
     public void Siadh_ThyrotropinBoundary(double tsh, string status)
     {
         var card = Card(Facts([.. Hypotonic(), Lab(Analyte.Thyrotropin, tsh, referenceLow: 0.4, referenceHigh: 4.0)]));
-        Assert.Contains($"(5) Normal thyroid function: **{status}**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains($"(5) Normal thyroid function: **{status}**", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -296,8 +296,8 @@ public class WorkupRulesTests
         Assert.Equal(siCard.Suggestions.Select(s => s.Key), usCard.Suggestions.Select(s => s.Key));
         foreach (var text in new[] { "**hypertonic**", "**136.8 mmol/L**", "**141.2 mmol/L**", "Osmolal gap** 2.9 mOsm/kg", "= 295 mOsm/kg" })
         {
-            Assert.Contains(text, usCard.Detail, StringComparison.Ordinal);
-            Assert.Contains(text, siCard.Detail, StringComparison.Ordinal);
+            Assert.Contains(text, usCard.Report, StringComparison.Ordinal);
+            Assert.Contains(text, siCard.Report, StringComparison.Ordinal);
         }
     }
 
@@ -316,10 +316,10 @@ public class WorkupRulesTests
 
         Assert.Equal(siCard.Summary, usCard.Summary);
         Assert.Equal(siCard.Suggestions.Select(s => s.Key), usCard.Suggestions.Select(s => s.Key));
-        Assert.Contains("259.5 mOsm/kg (US units as reported: 2 × 124 + glucose 104 mg/dL ÷ 18 + urea nitrogen 16 mg/dL ÷ 2.8", usCard.Detail, StringComparison.Ordinal);
-        Assert.Contains("259.5 mOsm/kg (SI units: 2 × 124 + glucose 5.8 + urea 5.7 mmol/L", siCard.Detail, StringComparison.Ordinal);
-        Assert.Contains("**met**: 253.8 mOsm/kg (calculated)", usCard.Detail, StringComparison.Ordinal);
-        Assert.Contains("**met**: 253.8 mOsm/kg (calculated)", siCard.Detail, StringComparison.Ordinal);
+        Assert.Contains("259.5 mOsm/kg (US units as reported: 2 × 124 + glucose 104 mg/dL ÷ 18 + urea nitrogen 16 mg/dL ÷ 2.8", usCard.Report, StringComparison.Ordinal);
+        Assert.Contains("259.5 mOsm/kg (SI units: 2 × 124 + glucose 5.8 + urea 5.7 mmol/L", siCard.Report, StringComparison.Ordinal);
+        Assert.Contains("**met**: 253.8 mOsm/kg (calculated)", usCard.Report, StringComparison.Ordinal);
+        Assert.Contains("**met**: 253.8 mOsm/kg (calculated)", siCard.Report, StringComparison.Ordinal);
     }
 
     private static Suggestion Suggestion(Card card, string loinc)

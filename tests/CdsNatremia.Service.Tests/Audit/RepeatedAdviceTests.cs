@@ -29,7 +29,7 @@ public class RepeatedAdviceTests
         Assert.Equal("info", (string?)second["indicator"]);
         Assert.StartsWith("Last reviewed 2 h ago: ", (string)second["summary"]!, StringComparison.Ordinal);
         // 12:10 UTC on 10 March is 13:10 in Berlin (CET, UTC+01:00: IANA tz database).
-        Assert.Contains("last reviewed 2026-03-10 13:10 (UTC+01:00) (2 h ago)", (string)second["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("**Already reviewed** 2026-03-10 13:10 (UTC+01:00) (2 h ago)", (string)second.CardText(), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -41,7 +41,7 @@ public class RepeatedAdviceTests
         factory.Clock.Advance(TimeSpan.FromHours(2));
         var second = Assessment(await HookCalls.RunAsync(client, ScenarioLibrary.Find("01")!));
         Assert.Equal((string?)first["indicator"], (string?)second["indicator"]);
-        Assert.DoesNotContain("Already reviewed", (string)second["detail"]!, StringComparison.Ordinal);
+        Assert.DoesNotContain("Already reviewed", (string)second.CardText(), StringComparison.Ordinal);
     }
 
     [Fact]

@@ -27,7 +27,7 @@ public class ClinicalSafetyHookTests(NatremiaFactory factory) : IClassFixture<Na
     {
         var scenario = ScenarioLibrary.Find(id)!;
         var cards = await HookCalls.RunAsync(factory.CreateClient(), scenario);
-        var text = string.Join("\n", cards.Select(c => (string)c!["summary"]! + "\n" + (string)c["detail"]!));
+        var text = string.Join("\n", cards.Select(c => (string)c!["summary"]! + "\n" + (string)c.CardText()));
         foreach (var mention in scenario.ExpectedMentions)
         {
             Assert.True(text.Contains(mention, StringComparison.OrdinalIgnoreCase), $"{id}: '{mention}' not on the cards");
@@ -45,7 +45,7 @@ public class ClinicalSafetyHookTests(NatremiaFactory factory) : IClassFixture<Na
         var summary = (string)card["summary"]!;
         Assert.Contains("sodium may fall", summary, StringComparison.Ordinal);
         Assert.DoesNotContain("within the", summary, StringComparison.Ordinal);
-        var detail = (string)card["detail"]!;
+        var detail = (string)card.CardText();
         Assert.Contains("urine osmolality 640 mOsm/kg", detail, StringComparison.Ordinal);
         // Total body water fraction 0.45 for a woman of 75 (reference sheet), printed as used: 60 × 0.45 = 27 L.
         Assert.Contains("× 0.45 (woman, age 75 years) = **27 L**", detail, StringComparison.Ordinal);
@@ -64,7 +64,7 @@ public class ClinicalSafetyHookTests(NatremiaFactory factory) : IClassFixture<Na
 
         var cards = await HookCalls.RunAsync(factory.CreateClient(), scenario with { BundleJson = bundle.ToJsonString() });
         var card = ByTopic(cards, "infusion-prediction");
-        Assert.Contains("The prediction assumes no urine losses.", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("The prediction assumes no urine losses.", (string)card.CardText(), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -74,7 +74,7 @@ public class ClinicalSafetyHookTests(NatremiaFactory factory) : IClassFixture<Na
         var card = ByTopic(await RunAsync("36"), "rate-caution-order");
         Assert.Equal("warning", (string?)card["indicator"]);
         Assert.Contains("advises against vaptans here", (string)card["summary"]!, StringComparison.Ordinal);
-        var detail = (string)card["detail"]!;
+        var detail = (string)card.CardText();
         Assert.Contains("latest sodium is moderate", detail, StringComparison.Ordinal);
         Assert.Contains("**The record shows liver disease** (Condition/s36-liver", detail, StringComparison.Ordinal);
         Assert.Contains("limiting the duration of treatment", detail, StringComparison.Ordinal);
@@ -88,7 +88,7 @@ public class ClinicalSafetyHookTests(NatremiaFactory factory) : IClassFixture<Na
         var card = Assert.Single(desmopressin)!;
         Assert.Contains("lower sodium", (string)card["summary"]!, StringComparison.Ordinal);
         Assert.DoesNotContain("raise", (string)card["summary"]!, StringComparison.OrdinalIgnoreCase);
-        Assert.Contains("**recognised strategy under senior care**", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("**recognised strategy under senior care**", (string)card.CardText(), StringComparison.Ordinal);
         Assert.Equal("warning", (string?)card["indicator"]);
     }
 
@@ -97,7 +97,7 @@ public class ClinicalSafetyHookTests(NatremiaFactory factory) : IClassFixture<Na
     {
         var card = ByTopic(await RunAsync("38"), "sodium-assessment");
         Assert.Contains("adult limits may not apply", (string)card["summary"]!, StringComparison.Ordinal);
-        Assert.Contains("**This patient is a child (9 years old, under 18)**", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("**This patient is a child (9 years old, under 18)**", (string)card.CardText(), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -105,7 +105,7 @@ public class ClinicalSafetyHookTests(NatremiaFactory factory) : IClassFixture<Na
     {
         // US expert panel (Verbalis et al. 2013): hypokalaemia and malnutrition are high-risk factors; limit 8 mmol/L in any 24 h.
         var card = ByTopic(await RunAsync("39"), "sodium-assessment");
-        var detail = (string)card["detail"]!;
+        var detail = (string)card.CardText();
         Assert.Contains("**This patient is at high risk of osmotic demyelination**", detail, StringComparison.Ordinal);
         Assert.Contains("low potassium: 3.1 mmol/L", detail, StringComparison.Ordinal);
         Assert.Contains("malnutrition", detail, StringComparison.Ordinal);
@@ -126,14 +126,14 @@ public class ClinicalSafetyHookTests(NatremiaFactory factory) : IClassFixture<Na
     {
         var card = ByTopic(await RunAsync("41"), "sodium-assessment");
         Assert.Contains("consider adrenal insufficiency urgently", (string)card["summary"]!, StringComparison.Ordinal);
-        Assert.Contains("**can raise sodium quickly**", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("**can raise sodium quickly**", (string)card.CardText(), StringComparison.Ordinal);
     }
 
     [Fact]
     public async Task PatientView_Scenario42FurstRatioAboveOne_RestrictionUnlikelyToWork()
     {
         // (112 + 46) / 126 = 1.25 > 1 (Furst et al., Am J Med Sci 2000;319:240).
-        var detail = (string)ByTopic(await RunAsync("42"), "sodium-assessment")["detail"]!;
+        var detail = (string)ByTopic(await RunAsync("42"), "sodium-assessment").CardText();
         Assert.Contains("(urine sodium 112 + urine potassium 46) / serum sodium 126 = **1.25**", detail, StringComparison.Ordinal);
         Assert.Contains("**fluid restriction is unlikely to work**", detail, StringComparison.Ordinal);
         Assert.DoesNotContain("fluid restriction is the usual first step", detail, StringComparison.Ordinal);

@@ -21,7 +21,7 @@ public class CorrectionRateConfigurationTests
         var cards = await HookCalls.RunAsync(custom.CreateClient(), ScenarioLibrary.Find("11")!);
         var card = CorrectionRateScenarioTests.ByTopic(cards, "correction-rate")!;
         Assert.Equal("warning", (string?)card["indicator"]);
-        Assert.Contains("local protocol of the test hospital", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("local protocol of the test hospital", (string)card.CardText(), StringComparison.Ordinal);
     }
 
     [Theory]

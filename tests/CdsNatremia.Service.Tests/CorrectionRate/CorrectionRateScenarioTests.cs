@@ -48,7 +48,7 @@ public class CorrectionRateScenarioTests(NatremiaFactory factory) : IClassFixtur
         Assert.Equal("result", scenario.Hook); // org.example.lab-result-arrive
         var card = await RateCardAsync(scenario);
         var summary = (string)card["summary"]!;
-        var detail = (string)card["detail"]!;
+        var detail = (string)card.CardText();
 
         // 112 mmol/L at 2026-03-09 15:00 → 124 at 2026-03-10 11:00: 12 mmol/L in 20 h, past the 2014 European
         // guideline's 10 mmol/L in the first 24 h (Spasovski et al. 2014); the window ends 15:00, 3 h after "now" (12:00).
@@ -71,7 +71,7 @@ public class CorrectionRateScenarioTests(NatremiaFactory factory) : IClassFixtur
     {
         // A 104 mmol/L result at 03-10 00:00, marked entered-in-error: had it counted it would be the nadir (and high risk).
         var scenario = WithResources(ScenarioLibrary.Find("11")!, r => [.. r, SodiumObservation("s11-na-err", "entered-in-error", 104, "2026-03-10T00:00:00Z")]);
-        var detail = (string)(await RateCardAsync(scenario))["detail"]!;
+        var detail = (string)(await RateCardAsync(scenario)).CardText();
         Assert.Contains("Observation/s11-na-2", detail, StringComparison.Ordinal); // nadir still 112
         Assert.Contains("124 − 112 = 12 mmol/L", detail, StringComparison.Ordinal);
         Assert.Contains("s11-na-err", detail, StringComparison.Ordinal); // listed as set aside
@@ -89,8 +89,8 @@ public class CorrectionRateScenarioTests(NatremiaFactory factory) : IClassFixtur
         });
         var card = await RateCardAsync(scenario);
         Assert.Equal("critical", (string?)card["indicator"]);
-        Assert.Contains("124 − 112 = 12 mmol/L over 20 h", (string)card["detail"]!, StringComparison.Ordinal);
-        Assert.Contains("4 result(s) from then on", (string)card["detail"]!, StringComparison.Ordinal); // duplicate counted once
+        Assert.Contains("124 − 112 = 12 mmol/L over 20 h", (string)card.CardText(), StringComparison.Ordinal);
+        Assert.Contains("4 result(s) from then on", (string)card.CardText(), StringComparison.Ordinal); // duplicate counted once
     }
 
     [Fact]
@@ -99,7 +99,7 @@ public class CorrectionRateScenarioTests(NatremiaFactory factory) : IClassFixtur
         var gas = SodiumObservation("s11-na-gas", "final", 125, "2026-03-10T11:00:00Z");
         gas["code"] = new JsonObject { ["coding"] = new JsonArray(new JsonObject { ["system"] = "http://loinc.org", ["code"] = "32717-1" }) }; // arterial blood (LOINC, reference sheet)
         var scenario = WithResources(ScenarioLibrary.Find("11")!, r => [.. r, gas]);
-        var detail = (string)(await RateCardAsync(scenario))["detail"]!;
+        var detail = (string)(await RateCardAsync(scenario)).CardText();
         Assert.Contains("125 − 112 = 13 mmol/L", detail, StringComparison.Ordinal);
         Assert.Contains("2 results share the latest minute", detail, StringComparison.Ordinal);
         Assert.Contains("different kinds of specimen", detail, StringComparison.Ordinal);

@@ -57,7 +57,7 @@ public class InfusionOrderHookTests(NatremiaFactory factory) : IClassFixture<Nat
     {
         var scenario = Scenario16();
         var card = ByTopic(await HookCalls.RunAsync(factory.CreateClient(), scenario), "infusion-prediction")!;
-        var detail = (string)card["detail"]!;
+        var detail = (string)card.CardText();
 
         // Adrogué–Madias (N Engl J Med 2000;342:1581): TBW 0.5 × 60 = 30 L (woman under 70, reference sheet);
         // (513 − 118) / (30 + 1) = 12.7 mmol/L per litre; 150 mL → 1.9 mmol/L; first-24-h limit 10 (European 2014).
@@ -96,7 +96,7 @@ public class InfusionOrderHookTests(NatremiaFactory factory) : IClassFixture<Nat
     {
         var scenario = CorrectionRateScenarioTests.WithResources(Scenario16(), r => r.Where(x => (string?)x["id"] != "s16-wt-1").ToList());
         var card = ByTopic(await HookCalls.RunAsync(factory.CreateClient(), scenario), "infusion-prediction")!;
-        var detail = (string)card["detail"]!;
+        var detail = (string)card.CardText();
         Assert.Contains("No usable body weight", detail, StringComparison.Ordinal);
         Assert.Contains("Example only, not this patient's weight", detail, StringComparison.Ordinal);
         Assert.DoesNotContain("for 150 mL", detail, StringComparison.Ordinal);
@@ -130,7 +130,7 @@ public class InfusionOrderHookTests(NatremiaFactory factory) : IClassFixture<Nat
         var cards = await HookCalls.RunAsync(factory.CreateClient(), scenario);
         var card = ByTopic(cards, "rate-caution-order")!;
         Assert.Equal("warning", (string?)card["indicator"]);
-        Assert.Contains("MedicationRequest/draft-vaptan", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("MedicationRequest/draft-vaptan", (string)card.CardText(), StringComparison.Ordinal);
         Assert.Null(ByTopic(cards, "infusion-prediction"));
     }
 }

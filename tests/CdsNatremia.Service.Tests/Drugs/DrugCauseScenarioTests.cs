@@ -17,7 +17,7 @@ public class DrugCauseScenarioTests(NatremiaFactory factory) : IClassFixture<Nat
     public async Task Scenario18_ThiazideInAceCombination_CardNamesTheThiazideAndItsTiming()
     {
         var card = await AssessmentAsync("18");
-        var detail = (string)card["detail"]!;
+        var detail = (string)card.CardText();
         Assert.Contains("hydrochlorothiazide", (string)card["summary"]!, StringComparison.Ordinal);
         Assert.Contains("**hydrochlorothiazide**", detail, StringComparison.Ordinal);
         Assert.Contains("lisinopril and hydrochlorothiazide tablet", detail, StringComparison.Ordinal);
@@ -38,7 +38,7 @@ public class DrugCauseScenarioTests(NatremiaFactory factory) : IClassFixture<Nat
     [InlineData("22", "eslicarbazepine", "started 2025-11-05 (effectivePeriod.start), after 140 mmol/L")]
     public async Task PatientView_DrugNamedWithTimingAndLikelyVerdict(string id, string drug, string timing)
     {
-        var detail = (string)(await AssessmentAsync(id))["detail"]!;
+        var detail = (string)(await AssessmentAsync(id)).CardText();
         Assert.Contains($"**{drug}", detail, StringComparison.Ordinal); // bold in the findings ("eslicarbazepine acetate" names the salt)
         Assert.Contains(timing, detail, StringComparison.Ordinal);
         Assert.Contains("likely contributor", detail, StringComparison.Ordinal);
@@ -47,17 +47,17 @@ public class DrugCauseScenarioTests(NatremiaFactory factory) : IClassFixture<Nat
 
     [Fact]
     public async Task Scenario21_AtcOnlyCode_MatchedByThatCode()
-        => Assert.Contains("matched by code ATC C03BA04", (string)(await AssessmentAsync("21"))["detail"]!, StringComparison.Ordinal);
+        => Assert.Contains("matched by code ATC C03BA04", (string)(await AssessmentAsync("21")).CardText(), StringComparison.Ordinal);
 
     [Fact]
     public async Task Scenario03_AntiEpileptic_CautionAgainstStoppingAbruptly()
-        => Assert.Contains("not stopped abruptly", (string)(await AssessmentAsync("03"))["detail"]!, StringComparison.Ordinal);
+        => Assert.Contains("not stopped abruptly", (string)(await AssessmentAsync("03")).CardText(), StringComparison.Ordinal);
 
     [Fact]
     public async Task Scenario07_LoopAndThiazideLikeDiuretics_CalledOutTogether()
     {
         // Furosemide (loop diuretic, secondary tier, text only) and metolazone (thiazide-like, RxNorm 6916).
-        var detail = (string)(await AssessmentAsync("07"))["detail"]!;
+        var detail = (string)(await AssessmentAsync("07")).CardText();
         Assert.Contains("Medicines acting together", detail, StringComparison.Ordinal);
         Assert.Contains("furosemide", detail, StringComparison.Ordinal);
         Assert.Contains("metolazone", detail, StringComparison.Ordinal);

@@ -37,7 +37,7 @@ public class DrugMentionsTests(NatremiaFactory factory) : IClassFixture<Natremia
                 continue;
             }
 
-            var text = string.Join("\n", (await HookCalls.RunAsync(client, scenario)).Select(c => (string)c!["summary"]! + "\n" + (string)c["detail"]!));
+            var text = string.Join("\n", (await HookCalls.RunAsync(client, scenario)).Select(c => (string)c!["summary"]! + "\n" + (string)c.CardText()));
             foreach (var drug in drugs)
             {
                 Assert.True(text.Contains(drug, StringComparison.OrdinalIgnoreCase), $"{scenario.Id}: '{drug}' not on the cards");

@@ -83,7 +83,7 @@ public class DrugOrderHookTests(NatremiaFactory factory) : IClassFixture<Natremi
             Assert.False(string.IsNullOrWhiteSpace((string?)r["code"]));
             Assert.False(string.IsNullOrWhiteSpace((string?)r["display"]));
         });
-        Assert.Contains("Advisory only", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("Advisory only", (string)card.CardText(), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -107,7 +107,7 @@ public class DrugOrderHookTests(NatremiaFactory factory) : IClassFixture<Natremi
         var scenario = ScenarioLibrary.Find("17")!;
         var card = Assert.Single(await DrugCardsAsync(Request(scenario, "order-sign", CombinationDraftOrders), "natremia-order-sign"));
         Assert.Contains("hydrochlorothiazide", (string)card["summary"]!, StringComparison.Ordinal);
-        Assert.Contains("matched by code RxNorm 5487", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("matched by code RxNorm 5487", (string)card.CardText(), StringComparison.Ordinal);
         Assert.Equal("MedicationRequest/draft-lis-hctz", (string?)card["suggestions"]![0]!["actions"]![0]!["resourceId"]);
     }
 
@@ -128,7 +128,7 @@ public class DrugOrderHookTests(NatremiaFactory factory) : IClassFixture<Natremi
         var drafts = ScenarioLibrary.Find("17")!.DraftOrdersJson!.Replace("Patient/s17-pt", "Patient/s01-pt", StringComparison.Ordinal);
         var card = Assert.Single(await DrugCardsAsync(Request(scenario, "order-sign", drafts), "natremia-order-sign"));
         Assert.Equal("critical", (string?)card["indicator"]);
-        Assert.Contains("hydrochlorothiazide", (string)card["detail"]!, StringComparison.Ordinal); // she already takes it: acting together
+        Assert.Contains("hydrochlorothiazide", (string)card.CardText(), StringComparison.Ordinal); // she already takes it: acting together
     }
 
     [Fact]

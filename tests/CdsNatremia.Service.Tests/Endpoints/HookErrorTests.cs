@@ -119,7 +119,7 @@ public class HookErrorTests(NatremiaFactory factory) : IClassFixture<NatremiaFac
         var body = Valid();
         body["prefetch"]!.AsObject().Remove("patient");
         var cards = await HookCalls.CardsAsync(await HookCalls.PostAsync(factory.CreateClient(), Service, body));
-        var detail = (string)cards.First()!["detail"]!;
+        var detail = (string)cards.First()!.CardText();
         Assert.Contains("Data the service could not use", detail, StringComparison.Ordinal);
         Assert.Contains("prefetch 'patient'", detail, StringComparison.Ordinal);
     }

@@ -74,7 +74,7 @@ public sealed class PrefetchTemplateTests(NatremiaFactory factory) : IClassFixtu
         body["prefetch"]!["conditions"] = JsonNode.Parse("""{"resourceType":"Bundle","type":"searchset","entry":[{"resource":{"resourceType":"Observation","id":"o1","status":"final","code":{"text":"x"}}}]}""");
 
         var cards = await HookCalls.CardsAsync(await HookCalls.PostAsync(factory.CreateClient(), Service, body));
-        var detail = (string)cards.Single(c => (string?)c!["source"]!["topic"]!["code"] == "sodium-assessment")!["detail"]!;
+        var detail = (string)cards.Single(c => (string?)c!["source"]!["topic"]!["code"] == "sodium-assessment")!.CardText();
 
         Assert.Contains("Data the service could not use", detail, StringComparison.Ordinal);
         Assert.Contains("prefetch 'conditions' is a Bundle holding Observation, but its template asks for a Bundle of Condition", detail, StringComparison.Ordinal);

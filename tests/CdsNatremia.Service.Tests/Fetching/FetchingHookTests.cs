@@ -45,7 +45,7 @@ public sealed class FetchingHookTests(ITestOutputHelper output) : IDisposable
 
         // Scenario 01 (scenarios.json): sodium 124 mmol/L, a profound low sodium, so an assessment card is expected.
         var card = cards.Single(c => (string?)c!["source"]!["topic"]!["code"] == "sodium-assessment")!;
-        var detail = (string)card["detail"]!;
+        var detail = (string)card.CardText();
         Assert.Contains("124", (string)card["summary"]!, StringComparison.Ordinal);
         Assert.Contains("fetched from the FHIR server", detail, StringComparison.Ordinal);
         Assert.Contains("fetched from the EHR's FHIR server", detail, StringComparison.Ordinal);
@@ -98,7 +98,7 @@ public sealed class FetchingHookTests(ITestOutputHelper output) : IDisposable
 
         var cards = await HookCalls.CardsAsync(await HookCalls.PostAsync(factory.CreateClient(), ServiceId, body));
 
-        var detail = (string)cards.Single(c => (string?)c!["source"]!["topic"]!["code"] == "sodium-assessment")!["detail"]!;
+        var detail = (string)cards.Single(c => (string?)c!["source"]!["topic"]!["code"] == "sodium-assessment")!.CardText();
         Assert.Contains("Data the service could not use", detail, StringComparison.Ordinal);
         Assert.Contains("medicationStatements", detail, StringComparison.Ordinal);
         Assert.Contains("HTTP 403", detail, StringComparison.Ordinal);

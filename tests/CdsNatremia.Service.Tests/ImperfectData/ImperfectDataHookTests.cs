@@ -13,7 +13,7 @@ public class ImperfectDataHookTests(NatremiaFactory factory) : IClassFixture<Nat
 {
     private static string Topic(JsonNode? card) => (string)card!["source"]!["topic"]!["code"]!;
 
-    private static string Text(JsonArray cards) => string.Join("\n", cards.Select(c => (string)c!["summary"]! + "\n" + (string)c["detail"]!));
+    private static string Text(JsonArray cards) => string.Join("\n", cards.Select(c => (string)c!["summary"]! + "\n" + (string)c.CardText()));
 
     private Task<JsonArray> RunAsync(string id) => HookCalls.RunAsync(factory.CreateClient(), ScenarioLibrary.Find(id)!);
 
@@ -43,7 +43,7 @@ public class ImperfectDataHookTests(NatremiaFactory factory) : IClassFixture<Nat
         Assert.Contains("(profound", (string)card["summary"]!, StringComparison.Ordinal);
         Assert.DoesNotContain("LessThan", Text(cards), StringComparison.Ordinal);
         Assert.DoesNotContain("no assessment", Text(cards), StringComparison.Ordinal);
-        Assert.Contains("no rise, fall or correction rate is computed", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("no rise, fall or correction rate is computed", (string)card.CardText(), StringComparison.Ordinal);
     }
 
     // Defect 2. Before: {"cards":[]} because the older usable 137 is normal.
@@ -54,9 +54,9 @@ public class ImperfectDataHookTests(NatremiaFactory factory) : IClassFixture<Nat
         var card = Assert.Single(cards);
         Assert.Equal("warning", (string?)card!["indicator"]); // older value 131 within 72 h was low
         Assert.Contains("could not be used", (string)card["summary"]!, StringComparison.Ordinal);
-        Assert.Contains("plausible range", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("plausible range", (string)card.CardText(), StringComparison.Ordinal);
         Assert.Contains("Sodium, serum or plasma", card["suggestions"]!.ToJsonString(), StringComparison.Ordinal);
-        Assert.DoesNotContain("12400 mmol/L: **", (string)card["detail"]!, StringComparison.Ordinal); // never the latest
+        Assert.DoesNotContain("12400 mmol/L: **", (string)card.CardText(), StringComparison.Ordinal); // never the latest
     }
 
     [Theory]
@@ -74,7 +74,7 @@ public class ImperfectDataHookTests(NatremiaFactory factory) : IClassFixture<Nat
         var cards = await HookCalls.CardsAsync(await HookCalls.PostAsync(factory.CreateClient(), "natremia-chart-review", request));
         var card = Assert.Single(cards);
         Assert.Equal("info", (string?)card!["indicator"]);
-        Assert.Contains("Observation/na-newest", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("Observation/na-newest", (string)card.CardText(), StringComparison.Ordinal);
     }
 
     // Defect 3. Before: a critical "rose 10 mmol/L in 0 h" card from the preliminary 117 to the amended 127.
@@ -85,7 +85,7 @@ public class ImperfectDataHookTests(NatremiaFactory factory) : IClassFixture<Nat
         Assert.DoesNotContain(cards, c => Topic(c) == "correction-rate");
         var card = Assert.Single(cards);
         Assert.Contains("127 mmol/L", (string)card!["summary"]!, StringComparison.Ordinal);
-        Assert.Contains("superseded by Observation/s25-na-3", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("superseded by Observation/s25-na-3", (string)card.CardText(), StringComparison.Ordinal);
     }
 
     // Defect 4. Before: the card printed "Observation/s28-x-na (Sodium 112 mmol/L …)" and "newest result unusable".
@@ -108,7 +108,7 @@ public class ImperfectDataHookTests(NatremiaFactory factory) : IClassFixture<Nat
     [Fact]
     public async Task ChartReview_UnresolvedCombinationTablet_DiureticCriterionCouldNotBeReadNamedByItsText()
     {
-        var detail = (string)Assert.Single(await RunAsync("29"))!["detail"]!;
+        var detail = (string)Assert.Single(await RunAsync("29"))!.CardText();
         Assert.Contains("No recent diuretic use: **unknown (could not be read)**", detail, StringComparison.Ordinal);
         Assert.Contains("Blood-pressure combination tablet (pharmacy record)", detail, StringComparison.Ordinal);
         Assert.DoesNotContain("consistent with SIADH", detail, StringComparison.Ordinal);
@@ -118,7 +118,7 @@ public class ImperfectDataHookTests(NatremiaFactory factory) : IClassFixture<Nat
     [Fact]
     public async Task ChartReview_ThiazideStoppedFourDaysAgo_RecentlyStoppedPossibleNeverLikely()
     {
-        var detail = (string)Assert.Single(await RunAsync("30"))!["detail"]!;
+        var detail = (string)Assert.Single(await RunAsync("30"))!.CardText();
         Assert.Contains("No recent diuretic use: **not met**", detail, StringComparison.Ordinal);
         Assert.Contains("recently stopped", detail, StringComparison.Ordinal);
         Assert.Contains("**possible contributor**", detail, StringComparison.Ordinal);
@@ -142,7 +142,7 @@ public class ImperfectDataHookTests(NatremiaFactory factory) : IClassFixture<Nat
         Assert.Equal(HttpStatusCode.OK, response.StatusCode);
         var cards = await HookCalls.CardsAsync(response);
         var card = Assert.Single(cards, c => Topic(c) == "sodium-assessment");
-        var detail = (string)card!["detail"]!;
+        var detail = (string)card!.CardText();
         Assert.Contains("124 mmol/L", (string)card["summary"]!, StringComparison.Ordinal);
         Assert.Contains("Sodium history not available", detail, StringComparison.Ordinal);
         Assert.Contains("**onset**", detail, StringComparison.Ordinal);

@@ -13,7 +13,7 @@ public class FoundationScenarioTests(NatremiaFactory factory) : IClassFixture<Na
         var card = cards.Single(c => (string?)c!["source"]!["topic"]!["code"] == "sodium-assessment")!;
         Assert.Equal("critical", (string?)card["indicator"]); // 124 < 125: profound (2014 European guideline)
         Assert.Contains("124 mmol/L", (string)card["summary"]!, StringComparison.Ordinal);
-        Assert.Contains("Observation/s01-na-2", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("Observation/s01-na-2", (string)card.CardText(), StringComparison.Ordinal);
         Assert.True(Guid.TryParse((string?)card["uuid"], out _));
     }
 
@@ -28,7 +28,7 @@ public class FoundationScenarioTests(NatremiaFactory factory) : IClassFixture<Na
     public async Task UnusableUnit_CardSaysWhichResultWasSetAsideAndWhy()
     {
         var card = (await HookCalls.RunAsync(factory.CreateClient(), ScenarioLibrary.Find("14")!)).First()!;
-        var detail = (string)card["detail"]!;
+        var detail = (string)card.CardText();
         Assert.Contains("mg/dL", detail, StringComparison.Ordinal);
         Assert.Contains("not one the service accepts", detail, StringComparison.Ordinal);
         Assert.Equal("info", (string?)card["indicator"]); // older valid 131: mild → info
@@ -60,9 +60,9 @@ public class FoundationScenarioTests(NatremiaFactory factory) : IClassFixture<Na
                 Assert.True(summary.Length < 140, $"{scenario.Id}: {summary}");
                 Assert.Contains((string)card["indicator"]!, new[] { "info", "warning", "critical" });
                 Assert.False(string.IsNullOrWhiteSpace((string?)card["source"]!["label"]));
-                Assert.Contains("Advisory only", (string)card["detail"]!, StringComparison.Ordinal);
-                Assert.Contains("osmotic demyelination", (string)card["detail"]!, StringComparison.Ordinal);
-                Assert.Contains("local protocols", (string)card["detail"]!, StringComparison.Ordinal);
+                Assert.Contains("Advisory only", (string)card.CardText(), StringComparison.Ordinal);
+                Assert.Contains("osmotic demyelination", (string)card.CardText(), StringComparison.Ordinal);
+                Assert.Contains("local protocols", (string)card.CardText(), StringComparison.Ordinal);
                 if (card["suggestions"] is { } suggestions)
                 {
                     Assert.NotEmpty(suggestions.AsArray());

@@ -76,6 +76,6 @@ public class TypicalPrefetchTests(NatremiaFactory factory) : IClassFixture<Natre
         var card = cards.Single(c => (string?)c!["source"]!["topic"]!["code"] == "sodium-assessment")!;
         Assert.Equal("critical", (string?)card["indicator"]); // 124 < 125 mmol/L: profound (2014 European guideline, Spasovski et al.)
         Assert.Contains("124 mmol/L", (string)card["summary"]!, StringComparison.Ordinal);
-        Assert.Contains("Advisory only", (string)card["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("Advisory only", (string)card.CardText(), StringComparison.Ordinal);
     }
 }

@@ -26,7 +26,7 @@ public partial class WorkupScenarioTests(NatremiaFactory factory) : IClassFixtur
     [InlineData("24", new[] { "Urine osmolality 150 mOsm/kg", "**low effective arterial blood volume**" })]
     public async Task Branch_CardStatesTheBranchAndItsData(string id, string[] expected)
     {
-        var detail = (string)(await AssessmentAsync(ScenarioLibrary.Find(id)!))["detail"]!;
+        var detail = (string)(await AssessmentAsync(ScenarioLibrary.Find(id)!)).CardText();
         foreach (var text in expected)
         {
             Assert.True(detail.Contains(text, StringComparison.Ordinal), $"{id}: missing \"{text}\" in\n{detail}");
@@ -42,7 +42,7 @@ public partial class WorkupScenarioTests(NatremiaFactory factory) : IClassFixtur
         foreach (var scenario in ScenarioLibrary.All.Where(s => s.Hook == "patient-view" && s.ExpectsCard))
         {
             var expect = scenario.Expect;
-            var detail = (string)(await AssessmentAsync(scenario))["detail"]!;
+            var detail = (string)(await AssessmentAsync(scenario)).CardText();
             if (expect.TryGetProperty("tonicity", out var tonicity))
             {
                 Assert.True(detail.Contains($"→ **{tonicity.GetString()}**", StringComparison.Ordinal), $"{scenario.Id}: tonicity {tonicity}");
@@ -113,13 +113,13 @@ public partial class WorkupScenarioTests(NatremiaFactory factory) : IClassFixtur
         Assert.Equal((string?)usCard["indicator"], (string?)siCard["indicator"]);
         foreach (var text in new[] { "→ **hypertonic**", "**136.8 mmol/L**", "**141.2 mmol/L**", "**Osmolal gap** 2.9 mOsm/kg", "= 295 mOsm/kg" })
         {
-            Assert.Contains(text, (string)usCard["detail"]!, StringComparison.Ordinal);
-            Assert.Contains(text, (string)siCard["detail"]!, StringComparison.Ordinal);
+            Assert.Contains(text, (string)usCard.CardText(), StringComparison.Ordinal);
+            Assert.Contains(text, (string)siCard.CardText(), StringComparison.Ordinal);
         }
 
         // Each input printed as used (issue 13, point 15): 28 mg/dL ÷ 2.8014 = 9.995 mmol/L urea; SI urea 10.
-        Assert.Contains("305 − urea 9.995 = 295 mOsm/kg", (string)usCard["detail"]!, StringComparison.Ordinal);
-        Assert.Contains("305 − urea 10 = 295 mOsm/kg", (string)siCard["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("305 − urea 9.995 = 295 mOsm/kg", (string)usCard.CardText(), StringComparison.Ordinal);
+        Assert.Contains("305 − urea 10 = 295 mOsm/kg", (string)siCard.CardText(), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -133,8 +133,8 @@ public partial class WorkupScenarioTests(NatremiaFactory factory) : IClassFixtur
         var siCard = await AssessmentAsync(si);
 
         Assert.Equal((string?)usCard["summary"], (string?)siCard["summary"]);
-        Assert.Contains("259.5 mOsm/kg (US units as reported", (string)usCard["detail"]!, StringComparison.Ordinal);
-        Assert.Contains("259.5 mOsm/kg (SI units", (string)siCard["detail"]!, StringComparison.Ordinal);
+        Assert.Contains("259.5 mOsm/kg (US units as reported", (string)usCard.CardText(), StringComparison.Ordinal);
+        Assert.Contains("259.5 mOsm/kg (SI units", (string)siCard.CardText(), StringComparison.Ordinal);
         Assert.Equal(SuggestionCodes(usCard), SuggestionCodes(siCard));
     }
 
