@@ -108,7 +108,7 @@ public sealed class DrugCauseRule : IAssessmentRule
         if (implicated.Any(d => d.Counts))
         {
             card.Suggest(LabOrders.AsSuggestion(
-                LabOrders.SerumSodium(PhraseCatalogue.Default.Render(Finding.Of(FindingKind.DrugRecheckWhileTaking), context.Display)), recommended: false));
+                LabOrders.SerumSodium(LabOrders.Why(FindingKind.DrugRecheckWhileTaking)), recommended: false));
         }
     }
 

@@ -235,7 +235,7 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         suggestions.Add(
             new(
                 Plain(Finding.Of(FindingKind.DrugOrderKeepLabel, plainName, recheck)),
-                [SuggestedAction.Order(LabOrders.SerumSodium(Plain(Finding.Of(FindingKind.DrugOrderKeepReason, plainName, recheck)), recheckHours))],
+                [SuggestedAction.Order(LabOrders.SerumSodium(LabOrders.Why(FindingKind.DrugOrderKeepReason, plainName, recheck), recheckHours))],
                 null,
                 "keep-and-recheck-sodium-" + draft.ResourceId));
 
