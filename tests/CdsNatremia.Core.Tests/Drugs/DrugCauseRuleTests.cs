@@ -136,6 +136,7 @@ public class DrugCauseRuleTests
     [Fact]
     public void Render_FallStep_BeforeAndFirstLowCitedWithTimesAndResources()
     {
+        // 138 (normal) then 126: Before = 138, FirstLow = 126 (SodiumFall definition).
         var card = Assessment(Patient(SomeDrugs.Statement("hctz", "hydrochlorothiazide 25 mg", ThreeWeeksAgo, SomeDrugs.RxNorm("5487"))));
         var fall = Assert.Single(OfKind(card.Content!.Steps, FindingKind.DrugFallKnown));
         Assert.Equal(

@@ -47,6 +47,7 @@ public class DrugOrderWarningProducerTests
     [Fact]
     public void Render_SsriDraftAt129_SummaryHeadlineAndSuggestionWording()
     {
+        // 129 mmol/L: moderate (2014 European guideline); recheck within 7 days: RecheckWithinHours 168 (common practice).
         var card = Decide(Some.Facts(Some.Sodium(129)), HookKind.OrderSign, [CitalopramDraft]).Single();
         Assert.Equal(
             "citalopram, a selective serotonin reuptake inhibitor (SSRI), can lower sodium; sodium is already 129 mmol/L (moderate, 2 h ago).",
