@@ -9,7 +9,13 @@ public sealed record SuggestedAction(ActionKind Kind, string Description, LabOrd
 {
     /// <summary>An action that creates a draft laboratory order.</summary>
     public static SuggestedAction Order(LabOrderProposal proposal)
-        => new(ActionKind.Create, "Order " + Guard.NotNull(proposal, nameof(proposal)).Display, proposal);
+        => new(ActionKind.Create, OrderLabel(Guard.NotNull(proposal, nameof(proposal))), proposal);
+
+    /// <summary>"Order Sodium, serum or plasma": the label and description of an order (plain text, from the catalogue).</summary>
+    public static string OrderLabel(LabOrderProposal proposal)
+        => Rendering.PhraseCatalogue.Default.Render(
+            Findings.Finding.Of(Findings.FindingKind.OrderLabel, Findings.Slot.Verbatim("test", Guard.NotNull(proposal, nameof(proposal)).Display)),
+            Text.TimeDisplay.Utc(default));
 
     /// <summary>An action that removes a draft order from the prescriber's basket.</summary>
     public static SuggestedAction Remove(string resourceReference, string description)

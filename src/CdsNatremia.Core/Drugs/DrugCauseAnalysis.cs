@@ -1,4 +1,3 @@
-using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Knowledge;
@@ -20,7 +19,7 @@ public static class DrugCauseAnalysis
     }
 
     /// <summary>The implicated drugs among <paramref name="medications"/>.</summary>
-    public static IReadOnlyList<ImplicatedDrug> Find(IReadOnlyList<CodeSet> causeSets, IEnumerable<MedicationFact> medications, SodiumFall? fall, TimeDisplay display)
+    public static IReadOnlyList<ImplicatedDrug> Find(IReadOnlyList<CodeSet> causeSets, IEnumerable<MedicationFact> medications, SodiumFall? fall)
     {
         Guard.NotNull(causeSets, nameof(causeSets));
         Guard.NotNull(medications, nameof(medications));
@@ -29,7 +28,7 @@ public static class DrugCauseAnalysis
         {
             foreach (var match in MedicationMatching.MatchAll(causeSets, medication))
             {
-                found.Add(new ImplicatedDrug(medication, match, DrugTiming.Assess(medication, fall, display), []));
+                found.Add(new ImplicatedDrug(medication, match, DrugTiming.Assess(medication, fall), []));
             }
         }
 

@@ -1,7 +1,9 @@
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
-using CdsNatremia.Core.Text;
+using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
+using CdsNatremia.Core.Rendering;
 
 namespace CdsNatremia.Core.Drugs;
 
@@ -28,15 +30,15 @@ public sealed class DrugCauseRule : IAssessmentRule
         }
 
         var fall = DrugCauseAnalysis.Fall(context);
-        var implicated = DrugCauseAnalysis.Find(sets, context.Request.Facts.Medications, fall, context.Display);
+        var implicated = DrugCauseAnalysis.Find(sets, context.Request.Facts.Medications, fall);
         if (implicated.Count == 0)
         {
             return;
         }
 
         card.RuleIds.Add(RuleId);
-        card.Sources.Add("Drug groups and codes: CdsNatremia knowledge files (profiles/valuesets; each code's source is listed in its file)");
-        card.Steps.Add(FallStep(fall, context.Display));
+        card.Sources.Add(DrugText.KnowledgeSource);
+        card.Steps.Add(FallStep(fall));
         if (fall?.Before is { } before)
         {
             card.ResourcesUsed.Add(before.Reference);
@@ -52,10 +54,14 @@ public sealed class DrugCauseRule : IAssessmentRule
         {
             card.ResourcesUsed.Add(drug.Medication.Reference);
             var treatment = HeartFailureTreatment.IsTreatment(drug.Match, heartFailure);
-            var inHeartFailure = treatment ? $" It treats the patient's {HeartFailureTreatment.Cite(heartFailure!)}: part of that treatment, not stopped for the sodium." : string.Empty;
-            card.Steps.Add(Step(drug) + inHeartFailure);
-            card.Differential.Add(Invariant.Format(
-                $"Medicine effect: {DrugText.Name(drug.Match)} ({Markdown.Escape(drug.Match.Set.Label)}), {drug.Timing.VerdictText} by timing{(treatment ? "; here part of heart-failure treatment" : string.Empty)}."));
+            card.Steps.Add(Step(drug, treatment ? heartFailure : null));
+            card.Differential.Add(Finding.Of(
+                    treatment ? FindingKind.DrugCauseHeartFailure : FindingKind.DrugCause,
+                    DrugText.Name(drug.Match),
+                    DrugText.Group(drug.Match.Set),
+                    Slot.Phrase("verdict", drug.Timing.VerdictFinding))
+                .With(drug.Timing.Certainty)
+                .RestingOn(drug.Medication.Reference));
             if (treatment)
             {
                 card.ResourcesUsed.Add(heartFailure!.Reference);
@@ -67,56 +73,87 @@ public sealed class DrugCauseRule : IAssessmentRule
             }
         }
 
+        // A likely drug cause is what the prescriber can act on now: the weightiest kind of reason (Weights.Culprit).
         var likely = implicated.Where(d => d.Timing.Verdict == TimingVerdict.Likely).ToList();
         foreach (var drug in likely)
         {
-            card.Findings.Add(Invariant.Format(
-                $"**{DrugText.Name(drug.Match)}** ({Markdown.Escape(drug.Match.Set.Label)}, {(drug.IsPrimary ? "primary" : "secondary")} tier) is a **likely contributor**: it began before the fall."));
+            var treatment = HeartFailureTreatment.IsTreatment(drug.Match, heartFailure);
+            card.Findings.Add(Finding.Of(
+                    treatment ? FindingKind.DrugLikelyHeartFailure : FindingKind.DrugLikely,
+                    DrugText.Name(drug.Match),
+                    DrugText.Group(drug.Match.Set),
+                    Slot.Phrase("tier", DrugText.Tier(drug.Match.Set)))
+                .With(Certainty.Likely)
+                .Weighted(Weights.Culprit)
+                .RestingOn([.. drug.Timing.Evidence.Evidence]));
         }
 
+        // Names only on the card: each drug's group is in its own reasoning step.
         var together = DrugCauseAnalysis.ActingTogether(implicated);
         if (together.Count > 0)
         {
-            var names = string.Join(" and ", together.Select(d => $"{DrugText.Name(d.Match)} ({Markdown.Escape(d.Match.Set.Label)})"));
-            card.Findings.Add($"**Medicines acting together**: {names}; their effects on sodium add up (common practice).");
+            card.Findings.Add(Finding.Of(
+                    FindingKind.DrugTogether,
+                    Slot.List("names", together.Select(d => (SlotValue)new TextValue(d.Match.Ingredient, Escape: true)), TogetherSeparator))
+                .With(Certainty.Possible)
+                .Weighted(Weights.Cause)
+                .RestingOn([.. together.Select(d => d.Medication.Reference)]));
         }
 
         if (likely.FirstOrDefault(d => d.IsPrimary && !HeartFailureTreatment.IsTreatment(d.Match, heartFailure)) is { } first)
         {
-            card.OfferSummaryAction(30, $"review {first.Match.Ingredient}, a likely cause");
+            card.OfferSummaryAction(SummaryPriority, Finding.Of(FindingKind.DrugActionReviewLikely, DrugText.Name(first.Match)).With(Certainty.Likely));
         }
 
         if (implicated.Any(d => d.Counts))
         {
             card.Suggest(LabOrders.AsSuggestion(
-                LabOrders.SerumSodium("A medicine that can lower sodium is being taken; recheck sodium after any change."), recommended: false));
+                LabOrders.SerumSodium(LabOrders.Why(FindingKind.DrugRecheckWhileTaking)), recommended: false));
         }
     }
 
-    private static string FallStep(SodiumFall? fall, TimeDisplay display)
+    /// <summary>The summary clause's priority: above "review causes and recheck" (10) and "work up the cause" (20), below the acute and urgent clauses.</summary>
+    public const int SummaryPriority = 30;
+
+    /// <summary>How the names of medicines acting together are joined (" and ", from the catalogue).</summary>
+    private static string TogetherSeparator => PhraseCatalogue.Default.Text(FindingKind.DrugListAnd);
+
+    private static Finding FallStep(SodiumFall? fall)
     {
         if (fall is null)
         {
-            return "**The fall in sodium**: no low sodium to set the medicines against.";
+            return Finding.Of(FindingKind.DrugFallNone).With(Certainty.Unknown);
         }
 
-        var first = Invariant.Format($"{Invariant.Number(fall.FirstLow.Value)} mmol/L at {display.Time(fall.FirstLow.EffectiveAt)} ({Markdown.Escape(fall.FirstLow.Reference)})");
+        var firstLow = DrugTiming.SodiumAt("firstLow", fall.FirstLow);
         return fall.Before is { } before
-            ? Invariant.Format(
-                $"**The fall in sodium**: {Invariant.Number(before.Value)} mmol/L at {display.Time(before.EffectiveAt)} ({Markdown.Escape(before.Reference)}) before the fall; {first} is the first result near the lowest level of this low stretch. A medicine started before that first low result is a likely contributor; one started on or after it, unlikely.")
-            : Invariant.Format(
-                $"**The fall in sodium**: no earlier higher sodium is on record; the first low result is {first}, so when the fall began is unknown.");
+            ? Finding.Of(FindingKind.DrugFallKnown, DrugTiming.SodiumAt("before", before), firstLow).RestingOn(before.Reference, fall.FirstLow.Reference)
+            : Finding.Of(FindingKind.DrugFallStartUnknown, firstLow).With(Certainty.Unknown).RestingOn(fall.FirstLow.Reference);
     }
 
-    private static string Step(ImplicatedDrug drug)
+    private static Finding Step(ImplicatedDrug drug, ConditionFact? heartFailure)
     {
         var medication = drug.Medication;
-        var product = medication.Text is { } text && !string.Equals(text, drug.Match.Ingredient, StringComparison.OrdinalIgnoreCase)
-            ? $" in \"{Markdown.Escape(text)}\""
-            : string.Empty;
-        var others = drug.OtherRecords.Count > 0
-            ? "; also recorded in " + string.Join(", ", drug.OtherRecords.Select(Markdown.Escape))
-            : string.Empty;
-        return $"**Medicine**: {DrugText.Name(drug.Match)}{product} ({Markdown.Escape(medication.Reference)}{others}), {DrugText.HowMatched(drug.Match)}; group {DrugText.GroupAndTier(drug.Match.Set)}. Timing: {drug.Timing.Text}: **{drug.Timing.VerdictText}**.";
+        var name = DrugText.Name(drug.Match);
+        var medicine = medication.Text is { } text && !string.Equals(text, drug.Match.Ingredient, StringComparison.OrdinalIgnoreCase)
+            ? Finding.Of(FindingKind.DrugMedicineInProduct, name, Slot.Text("product", text))
+            : Finding.Of(FindingKind.DrugMedicine, name);
+        var reference = Slot.Text("reference", medication.Reference);
+        var records = drug.OtherRecords.Count > 0
+            ? Finding.Of(FindingKind.DrugRecordsMany, reference, Slot.Names("others", drug.OtherRecords))
+            : Finding.Of(FindingKind.DrugRecordsOne, reference);
+        Slot[] slots =
+        [
+            Slot.Phrase("medicine", medicine),
+            Slot.Phrase("records", records),
+            Slot.Phrase("how", DrugText.HowMatched(drug.Match)),
+            Slot.Phrase("group", DrugText.GroupAndTier(drug.Match.Set)),
+            Slot.Phrase("timing", drug.Timing.Evidence),
+            Slot.Phrase("verdict", drug.Timing.VerdictFinding),
+        ];
+        var step = heartFailure is null
+            ? Finding.Of(FindingKind.DrugStep, slots)
+            : Finding.Of(FindingKind.DrugStepHeartFailure, [.. slots, Slot.Phrase("heartFailure", HeartFailureTreatment.Cite(heartFailure))]);
+        return step.With(drug.Timing.Certainty).RestingOn([medication.Reference, .. drug.OtherRecords, .. drug.Timing.Evidence.Evidence]);
     }
 }

@@ -3,7 +3,9 @@ using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.CorrectionRate;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Knowledge;
+using CdsNatremia.Core.Rendering;
 using CdsNatremia.Core.Sodium;
 using CdsNatremia.Core.Text;
 
@@ -56,7 +58,7 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         }
 
         var fall = DrugCauseAnalysis.Fall(context);
-        var existing = DrugCauseAnalysis.Find(sets, request.Facts.Medications, fall, context.Display);
+        var existing = DrugCauseAnalysis.Find(sets, request.Facts.Medications, fall);
         return implicatedDrafts
             .DistinctBy(x => x.Draft.Reference, StringComparer.Ordinal)
             .Select(x => Build(context, x.Draft, x.Matches, reason, existing, implicatedDrafts.Select(o => o.Draft).Where(o => o.Reference != x.Draft.Reference).ToList(), sets))
@@ -103,22 +105,36 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         var profound = band == SeverityBand.Profound && reason.Trigger == OrderWarningTrigger.Low;
         var recheckHours = profound ? options.ProfoundRecheckWithinHours : options.RecheckWithinHours;
         var used = new SortedSet<string>(StringComparer.Ordinal) { draft.Reference };
+        var mainName = DrugText.Name(main);
 
-        var findings = new List<string>();
-        var product = draft.Text is { } text ? $" \"{Markdown.Escape(text)}\"" : string.Empty;
+        // Reasons: what the headline does not say yet, by weight (the short card shows three). Steps: the full reasoning.
+        var reasons = new List<Finding>();
+        var steps = new List<Finding>();
         foreach (var match in matches)
         {
-            findings.Add($"The draft order{product} ({Markdown.Escape(draft.Reference)}) contains **{DrugText.Name(match)}**, {DrugText.HowMatched(match)}; group {DrugText.GroupAndTier(match.Set)}.");
+            var reference = Slot.Text("reference", draft.Reference);
+            Slot[] slots = [reference, DrugText.Name(match), Slot.Phrase("how", DrugText.HowMatched(match)), Slot.Phrase("group", DrugText.GroupAndTier(match.Set))];
+            steps.Add((draft.Text is { } text
+                ? Finding.Of(FindingKind.DrugOrderContainsProduct, [.. slots, Slot.Text("product", text)])
+                : Finding.Of(FindingKind.DrugOrderContains, slots)).RestingOn(draft.Reference));
+            reasons.Add(Finding.Of(FindingKind.DrugOrderReasonGroup, DrugText.Name(match), Slot.Phrase("group", DrugText.GroupAndTier(match.Set)))
+                .Weighted(Weights.Context)
+                .RestingOn(draft.Reference));
         }
 
-        findings.Add(ReasonLine(reason, thresholds, options, used, context.Display));
+        steps.Add(ReasonStep(reason, thresholds, options, used));
+        if (ReasonFinding(reason, options) is { } why)
+        {
+            reasons.Add(why);
+        }
 
         var relowering = string.Equals(main.Set.Id, DesmopressinSetId, StringComparison.Ordinal)
             ? Allowance.For(context)?.Overcorrected
             : null;
         if (relowering is not null)
         {
-            findings.Add(RateCautionOrderCardProducer.ReloweringText(relowering, context.Display));
+            reasons.Add(Finding.Of(FindingKind.DrugOrderReasonRelowering).Weighted(Weights.Culprit));
+            steps.Add(Relowering(relowering, context));
         }
 
         var sameDrug = existing.Where(e => matches.Any(m => m.Set.Id == e.Match.Set.Id
@@ -126,74 +142,108 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         foreach (var drug in sameDrug)
         {
             used.Add(drug.Medication.Reference);
-            findings.Add($"The patient already takes {DrugText.Name(drug.Match)} ({Markdown.Escape(drug.Medication.Reference)}); against the sodium series: {drug.Timing.Text}: **{drug.Timing.VerdictText}**.");
+            var reference = Slot.Text("reference", drug.Medication.Reference);
+            steps.Add(Finding.Of(
+                    FindingKind.DrugOrderAlreadyTaken,
+                    DrugText.Name(drug.Match),
+                    reference,
+                    Slot.Phrase("timing", drug.Timing.Evidence),
+                    Slot.Phrase("verdict", drug.Timing.VerdictFinding))
+                .With(drug.Timing.Certainty)
+                .RestingOn([drug.Medication.Reference, .. drug.Timing.Evidence.Evidence]));
+            reasons.Add(Finding.Of(FindingKind.DrugOrderReasonAlreadyTaken, DrugText.Name(drug.Match), reference, Slot.Phrase("verdict", drug.Timing.VerdictFinding))
+                .With(drug.Timing.Certainty)
+                .Weighted(Weights.Cause)
+                .RestingOn(drug.Medication.Reference));
         }
 
         var together = existing.Except(sameDrug).Where(e => e.Medication.Use == MedicationUse.Active)
-            .Select(e => (Name: DrugText.Name(e.Match), Label: e.Match.Set.Label, Where: "already taken, " + e.Medication.Reference))
+            .Select(e => (e.Match, Kind: FindingKind.DrugOrderTogetherTaken, e.Medication.Reference))
             .Concat(otherDrafts.SelectMany(o => MedicationMatching.MatchAll(sets, o)
-                .Select(m => (Name: DrugText.Name(m), Label: m.Set.Label, Where: "also in these orders, " + o.Reference))))
-            .Where(t => !matches.Any(m => string.Equals(DrugText.Name(m), t.Name, StringComparison.OrdinalIgnoreCase)))
-            .DistinctBy(t => t.Name.ToLowerInvariant())
+                .Select(m => (Match: m, Kind: FindingKind.DrugOrderTogetherOrdered, o.Reference))))
+            .Where(t => !matches.Any(m => string.Equals(m.Ingredient, t.Match.Ingredient, StringComparison.OrdinalIgnoreCase)))
+            .DistinctBy(t => t.Match.Ingredient.ToLowerInvariant())
             .ToList();
         if (together.Count > 0)
         {
-            var names = string.Join("; ", together.Select(t => $"{t.Name} ({Markdown.Escape(t.Label)}; {Markdown.Escape(t.Where)})"));
-            findings.Add($"**Medicines acting together**: {DrugText.Name(main)} with {names}; their effects on sodium add up (common practice).");
+            var others = together
+                .Select(t => (SlotValue)new PhraseValue(Finding.Of(t.Kind, DrugText.Name(t.Match), DrugText.Group(t.Match.Set), Slot.Text("reference", t.Reference))))
+                .ToList();
+            var references = together.Select(t => t.Reference).ToArray();
+            steps.Add(Finding.Of(FindingKind.DrugOrderTogether, mainName, Slot.List("names", others, TogetherSeparator)).With(Certainty.Possible).RestingOn(references));
+            reasons.Add(Finding.Of(FindingKind.DrugOrderReasonTogether, Slot.Names("names", together.Select(t => t.Match.Ingredient)))
+                .With(Certainty.Possible)
+                .Weighted(Weights.Cause)
+                .RestingOn(references));
         }
 
-        var recheck = Invariant.Format($"within {ClinicalDuration.Hours(recheckHours)}");
+        var recheck = Slot.Phrase("recheck", Finding.Of(FindingKind.DrugOrderWithin, Slot.Verbatim("duration", ClinicalDuration.Hours(recheckHours))));
         var heartFailure = HeartFailureTreatment.HeartFailure(context);
         var treatment = HeartFailureTreatment.IsTreatment(main, heartFailure);
         if (treatment)
         {
             used.Add(heartFailure!.Reference);
+            reasons.Add(Finding.Of(FindingKind.DrugOrderReasonHeartFailure, Slot.Phrase("heartFailure", HeartFailureTreatment.Cite(heartFailure)))
+                .Weighted(Weights.Culprit)
+                .RestingOn(heartFailure.Reference));
         }
 
-        var consider = treatment
-            ? new List<string>
-            {
+        List<Finding> consider = treatment
+            ?
+            [
                 HeartFailureTreatment.Considerations(main, heartFailure!),
-                $"Clinicians usually recheck sodium {recheck} of a change in the diuretic, and sooner if symptoms appear (common practice).",
-                "The choice below adds a sodium recheck; removing the order is not offered, since the diuretic treats the heart failure.",
-            }
-            : new List<string>
-            {
+                Finding.Of(FindingKind.DrugOrderRecheckAfterChange, recheck),
+                Finding.Of(FindingKind.DrugOrderChoiceKeepOnly),
+            ]
+            :
+            [
                 DrugText.ConsiderationsBeforeStarting(main),
-                $"If it is kept, clinicians usually recheck sodium {recheck} of starting it, and sooner if symptoms appear (common practice).",
-                "The choices below are offered, at most one: remove this draft order, or keep it and add a sodium recheck.",
-            };
+                Finding.Of(FindingKind.DrugOrderRecheckIfKept, recheck),
+                Finding.Of(FindingKind.DrugOrderChoices),
+            ];
 
-        var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**A medicine that can lower sodium is being ordered**, as of {context.Display.Time(context.Request.Now)}. Advisory only."))
-            .Bullets("Findings", findings)
-            .Bullets("What clinicians usually consider", consider);
-        CardFooter.Write(detail, context, [
-            "Drug groups and codes: CdsNatremia knowledge files (profiles/valuesets; each code's source is listed in its file)",
-            thresholds.Source,
-        ]);
+        var cautions = new List<Finding>();
+        if (context.Sodium.LatestIsStale && reason.Latest is { } stale && reason.Trigger != OrderWarningTrigger.AbsentOlderPatient)
+        {
+            cautions.Add(Finding.Of(FindingKind.DrugOrderCautionStale, Slot.Time("age", stale.EffectiveAt, TimeStyle.Age)).RestingOn(stale.Reference));
+        }
 
-        var name = main.Ingredient;
-        var removeLabel = $"Remove the draft {name} order";
+        var content = new CardContent
+        {
+            Summary = Finding.Of(SummaryKind(reason.Trigger), [Slot.Phrase("drugWithGroup", DrugText.NameWithGroup(main)), .. SodiumSlots(reason, thresholds, options)]),
+            Headline = Finding.Of(HeadlineKind(reason.Trigger), [mainName, .. SodiumSlots(reason, thresholds, options)]).RestingOn([.. used]),
+            Reasons = reasons,
+            Steps = steps,
+            NextSteps = consider,
+            Cautions = cautions,
+            Sources = [DrugText.KnowledgeSource, thresholds.Source],
+        };
+
+        // Suggestion labels and order reasons are plain text (not Markdown): rendered here, from the catalogue.
+        string Plain(Finding finding) => PhraseCatalogue.Default.Render(finding, context.Display);
+        var plainName = Slot.Verbatim("drug", main.Ingredient);
         var suggestions = new List<Suggestion>();
         if (!treatment)
         {
-            suggestions.Add(new(removeLabel, [SuggestedAction.Remove(draft.Reference, $"Remove the draft order {draft.Reference} ({name}).")], null, "remove-draft-" + draft.ResourceId));
+            suggestions.Add(new(
+                Plain(Finding.Of(FindingKind.DrugOrderRemoveLabel, plainName)),
+                [SuggestedAction.Remove(draft.Reference, Plain(Finding.Of(FindingKind.DrugOrderRemoveDescription, plainName, Slot.Verbatim("reference", draft.Reference))))],
+                null,
+                "remove-draft-" + draft.ResourceId));
         }
 
         suggestions.Add(
             new(
-                Invariant.Format($"Keep the {name} order and recheck sodium {recheck}"),
-                [SuggestedAction.Order(LabOrders.SerumSodium(Invariant.Format($"{name} can lower sodium; recheck {recheck} of starting it."), recheckHours))],
+                Plain(Finding.Of(FindingKind.DrugOrderKeepLabel, plainName, recheck)),
+                [SuggestedAction.Order(LabOrders.SerumSodium(LabOrders.Why(FindingKind.DrugOrderKeepReason, plainName, recheck), recheckHours))],
                 null,
                 "keep-and-recheck-sodium-" + draft.ResourceId));
 
         return new Card
         {
-            Summary = Summary.Fit(SummaryText(main, reason, band, thresholds, options, context.Display)),
+            Content = content,
             // A stale sodium calls for a recheck first, and a deliberate re-lowering is a senior decision: at most a warning.
             Indicator = profound && relowering is null && !context.Sodium.LatestIsStale ? CardIndicator.Critical : CardIndicator.Warning,
-            Detail = detail.ToString(),
             Topic = "drug-order-warning",
             RuleIds = [RuleId],
             ResourcesUsed = [.. used],
@@ -202,20 +252,70 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         };
     }
 
-    private static string SummaryText(MedicationMatch main, OrderWarningReason reason, SeverityBand? band, SeverityThresholds thresholds, DrugCauseOptions options, TimeDisplay display)
-    {
-        var what = $"{DrugText.PlainNameWithGroup(main)} can lower sodium";
-        return reason.Trigger switch
-        {
-            OrderWarningTrigger.Low => Invariant.Format(
-                $"{what}; sodium is already {Invariant.Number(reason.Latest!.Value)} mmol/L ({thresholds.NameOf(band!.Value)}, {display.AgeAndTime(reason.Latest.EffectiveAt)})."),
-            OrderWarningTrigger.Falling => Invariant.Format(
-                $"{what}; sodium is falling: {Invariant.Number(reason.Latest!.Value)} mmol/L, down from {Invariant.Number(reason.Higher!.Value)}."),
-            _ => Invariant.Format($"{what}; no sodium in the last {Invariant.Number(options.RecentSodiumDays)} days for a patient aged {reason.AgeYears}."),
-        };
-    }
+    /// <summary>How the drugs acting together are joined (a separator, not a sentence).</summary>
+    private const string TogetherSeparator = "; ";
 
-    private static string ReasonLine(OrderWarningReason reason, SeverityThresholds thresholds, DrugCauseOptions options, SortedSet<string> used, TimeDisplay display)
+    private static string SummaryKind(OrderWarningTrigger trigger) => trigger switch
+    {
+        OrderWarningTrigger.Low => FindingKind.DrugOrderSummaryLow,
+        OrderWarningTrigger.Falling => FindingKind.DrugOrderSummaryFalling,
+        _ => FindingKind.DrugOrderSummaryAbsent,
+    };
+
+    private static string HeadlineKind(OrderWarningTrigger trigger) => trigger switch
+    {
+        OrderWarningTrigger.Low => FindingKind.DrugOrderHeadlineLow,
+        OrderWarningTrigger.Falling => FindingKind.DrugOrderHeadlineFalling,
+        _ => FindingKind.DrugOrderHeadlineAbsent,
+    };
+
+    /// <summary>The values of the summary and headline: the sodium that gave the warning, or the days and the age.</summary>
+    private static Slot[] SodiumSlots(OrderWarningReason reason, SeverityThresholds thresholds, DrugCauseOptions options) => reason.Trigger switch
+    {
+        OrderWarningTrigger.Low =>
+        [
+            Slot.Number("sodium", reason.Latest!.Value),
+            Slot.Text("band", thresholds.NameOf(thresholds.Classify(reason.Latest.Value))),
+            Slot.Time("when", reason.Latest.EffectiveAt, TimeStyle.AgeAndTime),
+            Slot.Time("age", reason.Latest.EffectiveAt, TimeStyle.Age),
+        ],
+        OrderWarningTrigger.Falling =>
+        [
+            Slot.Number("sodium", reason.Latest!.Value),
+            Slot.Number("higher", reason.Higher!.Value),
+            Slot.Time("when", reason.Latest.EffectiveAt, TimeStyle.AgeAndTime),
+        ],
+        _ => [Slot.Number("days", options.RecentSodiumDays), Slot.Count("age", reason.AgeYears ?? 0)],
+    };
+
+    /// <summary>The short reason for the card beyond the headline: how far the sodium fell, or why a missing sodium matters.</summary>
+    private static Finding? ReasonFinding(OrderWarningReason reason, DrugCauseOptions options) => reason.Trigger switch
+    {
+        OrderWarningTrigger.Falling => Finding.Of(
+                FindingKind.DrugOrderReasonFalling,
+                Slot.Rounded("drop", reason.Higher!.Value - reason.Latest!.Value, 1),
+                Slot.Number("higher", reason.Higher.Value),
+                Slot.Time("when", reason.Higher.EffectiveAt, TimeStyle.AgeAndTime),
+                Slot.Number("meaningful", options.MeaningfulDropMmolPerL),
+                Slot.Verbatim("window", ClinicalDuration.Hours(options.FallingWindowHours)))
+            .Weighted(Weights.Pace)
+            .RestingOn(reason.Latest.Reference, reason.Higher.Reference),
+        OrderWarningTrigger.AbsentOlderPatient => Finding.Of(
+                FindingKind.DrugOrderReasonAbsent,
+                Slot.Count("age", reason.AgeYears ?? 0),
+                Slot.Count("minAge", options.AbsentSodiumMinimumAgeYears),
+                Slot.Phrase("last", LastSodium(reason)))
+            .With(Certainty.Unknown)
+            .Weighted(Weights.Pace),
+        _ => null,
+    };
+
+    private static Finding LastSodium(OrderWarningReason reason)
+        => reason.Latest is { } last
+            ? Finding.Of(FindingKind.DrugOrderAbsentLast, Slot.Result("result", last)).RestingOn(last.Reference)
+            : Finding.Of(FindingKind.DrugOrderAbsentNone);
+
+    private static Finding ReasonStep(OrderWarningReason reason, SeverityThresholds thresholds, DrugCauseOptions options, SortedSet<string> used)
     {
         switch (reason.Trigger)
         {
@@ -223,22 +323,46 @@ public sealed class DrugOrderWarningProducer : ICardProducer
                 var latest = reason.Latest!;
                 used.Add(latest.Reference);
                 var band = thresholds.Classify(latest.Value);
-                return Invariant.Format(
-                    $"**Sodium is already low**: {Cite.Result(latest, display)}, {thresholds.NameOf(band)} hyponatremia ({thresholds.RangeOf(band)}; {thresholds.Source}); this medicine can lower it further.");
+                return Finding.Of(
+                        FindingKind.DrugOrderLow,
+                        Slot.Result("result", latest),
+                        Slot.Text("band", thresholds.NameOf(band)),
+                        Slot.Text("range", thresholds.RangeOf(band)),
+                        Slot.Verbatim("source", thresholds.Source))
+                    .RestingOn(latest.Reference);
             case OrderWarningTrigger.Falling:
                 used.Add(reason.Latest!.Reference);
                 used.Add(reason.Higher!.Reference);
-                return Invariant.Format(
-                    $"**Sodium is falling**: {Cite.Result(reason.Latest, display)}, down {Invariant.Number(reason.Higher.Value - reason.Latest.Value)} mmol/L from {Cite.Result(reason.Higher, display)} (a drop of at least {Invariant.Number(options.MeaningfulDropMmolPerL)} mmol/L within {ClinicalDuration.Hours(options.FallingWindowHours)} counts as falling).");
+                return Finding.Of(
+                        FindingKind.DrugOrderFalling,
+                        Slot.Result("latest", reason.Latest),
+                        Slot.Rounded("drop", reason.Higher.Value - reason.Latest.Value, 1),
+                        Slot.Result("higher", reason.Higher),
+                        Slot.Number("meaningful", options.MeaningfulDropMmolPerL),
+                        Slot.Verbatim("window", ClinicalDuration.Hours(options.FallingWindowHours)))
+                    .RestingOn(reason.Latest.Reference, reason.Higher.Reference);
             default:
                 if (reason.Latest is { } old)
                 {
                     used.Add(old.Reference);
                 }
 
-                var last = reason.Latest is { } l ? "the last usable one is " + Cite.Result(l, display) : "none is on record";
-                return Invariant.Format(
-                    $"**No recent sodium**: no usable sodium in the last {Invariant.Number(options.RecentSodiumDays)} days ({last}), and the patient is {reason.AgeYears} years old (age {options.AbsentSodiumMinimumAgeYears} or over: a higher risk of low sodium from medicines, common practice).");
+                return Finding.Of(
+                        FindingKind.DrugOrderAbsent,
+                        Slot.Number("days", options.RecentSodiumDays),
+                        Slot.Phrase("last", LastSodium(reason)),
+                        Slot.Count("age", reason.AgeYears ?? 0),
+                        Slot.Count("minAge", options.AbsentSodiumMinimumAgeYears))
+                    .With(Certainty.Unknown);
         }
     }
+
+    /// <summary>
+    /// The over-correction the chart shows, for a desmopressin order: the rate card's own sentence
+    /// (<see cref="RateCautionOrderCardProducer.ReloweringText"/>), so both cards say the same.
+    /// TRANSITIONAL: carried as legacy text until the rate card gives it as a finding.
+    /// </summary>
+    private static Finding Relowering(RateWindow window, DecisionContext context)
+        => Finding.Of(FindingKind.LegacyText, Slot.Verbatim("text", RateCautionOrderCardProducer.ReloweringText(window, context.Display)))
+            .RestingOn(window.Baseline.Reference);
 }

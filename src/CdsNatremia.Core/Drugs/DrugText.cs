@@ -1,68 +1,69 @@
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Knowledge;
-using CdsNatremia.Core.Text;
 
 namespace CdsNatremia.Core.Drugs;
 
-/// <summary>The shared wording of the drug cards: group and tier, how a drug matched, what clinicians usually consider.</summary>
+/// <summary>
+/// The shared findings of the drug cards: a drug's name, its group and tier, how it matched, and what clinicians usually
+/// consider. Findings only: the wording is in the phrase catalogue (<c>Phrases/Drugs.resx</c>).
+/// </summary>
 public static class DrugText
 {
-    /// <summary>"thiazide or thiazide-like diuretic; primary tier: a well-established cause".</summary>
-    public static string GroupAndTier(CodeSet set)
-    {
-        Guard.NotNull(set, nameof(set));
-        var tier = set.Tier == EvidenceTier.Primary
-            ? "primary tier: a well-established cause"
-            : "secondary tier: another known contributor, with less evidence";
-        return $"{Markdown.Escape(set.Label)}; {tier}";
-    }
+    /// <summary>The source cited for the drug groups and their codes (bibliographic data).</summary>
+    public const string KnowledgeSource = "Drug groups and codes: CdsNatremia knowledge files (profiles/valuesets; each code's source is listed in its file)";
 
-    /// <summary>"matched by RxNorm 5487" or "matched by name in the medication text (no code matched)".</summary>
-    public static string HowMatched(MedicationMatch match)
+    /// <summary>The drug's name (the matched ingredient), a name from knowledge or data: escaped when printed.</summary>
+    public static Slot Name(MedicationMatch match, string slot = "drug") => Slot.Text(slot, Guard.NotNull(match, nameof(match)).Ingredient);
+
+    /// <summary>The group's label, a name from knowledge.</summary>
+    public static Slot Group(CodeSet set, string slot = "group") => Slot.Text(slot, Guard.NotNull(set, nameof(set)).Label);
+
+    /// <summary>"thiazide or thiazide-like diuretic; primary tier: a well-established cause".</summary>
+    public static Finding GroupAndTier(CodeSet set)
+        => Finding.Of(Guard.NotNull(set, nameof(set)).Tier == EvidenceTier.Primary ? FindingKind.DrugGroupPrimary : FindingKind.DrugGroupSecondary, Group(set));
+
+    /// <summary>"primary tier" or "secondary tier".</summary>
+    public static Finding Tier(CodeSet set)
+        => Finding.Of(Guard.NotNull(set, nameof(set)).Tier == EvidenceTier.Primary ? FindingKind.DrugTierPrimary : FindingKind.DrugTierSecondary);
+
+    /// <summary>"matched by code RxNorm 5487" or "matched by name in the medication text (no code matched)".</summary>
+    public static Finding HowMatched(MedicationMatch match)
     {
         Guard.NotNull(match, nameof(match));
-        return match.ByName
-            ? "matched by name in the medication text (no code matched)"
-            : "matched by code " + Markdown.Escape(match.By);
+        return match.ByName ? Finding.Of(FindingKind.DrugMatchedByName) : Finding.Of(FindingKind.DrugMatchedByCode, Slot.Text("code", match.By));
     }
-
-    /// <summary>The drug's name as cards print it (escaped).</summary>
-    public static string Name(MedicationMatch match) => Markdown.Escape(Guard.NotNull(match, nameof(match)).Ingredient);
 
     /// <summary>
     /// What clinicians usually consider for a drug of this group: review the need, a lower-risk alternative, recheck
     /// sodium; with the group's own caution where stopping abruptly is a hazard (anti-epileptics: seizures;
     /// antidepressants: discontinuation symptoms; common practice).
     /// </summary>
-    public static string Considerations(MedicationMatch match)
+    public static Finding Considerations(MedicationMatch match)
     {
         Guard.NotNull(match, nameof(match));
-        var text = $"For {Name(match)}, clinicians usually consider whether it is still needed, whether an alternative with a lower risk to sodium would serve, and rechecking sodium after any change";
         var caution = match.Set.Id switch
         {
-            "drug-carbamazepine-family" or "drug-other-antiepileptic"
-                => "; an anti-epileptic is not stopped abruptly (risk of seizures): discuss any change with the clinician who manages the epilepsy",
-            "drug-ssri" or "drug-snri" or "drug-tricyclic"
-                => "; an antidepressant is usually tapered rather than stopped abruptly: discuss any change with the prescriber",
-            "drug-desmopressin" => "; discuss any change with the clinician who prescribed it",
-            "drug-chemotherapy" => "; discuss with the oncology team under local protocol",
-            _ => string.Empty,
+            "drug-carbamazepine-family" or "drug-other-antiepileptic" => FindingKind.DrugCautionAntiepileptic,
+            "drug-ssri" or "drug-snri" or "drug-tricyclic" => FindingKind.DrugCautionAntidepressant,
+            "drug-desmopressin" => FindingKind.DrugCautionDesmopressin,
+            "drug-chemotherapy" => FindingKind.DrugCautionChemotherapy,
+            _ => null,
         };
-        return text + caution + ".";
+        return caution is null
+            ? Finding.Of(FindingKind.DrugConsider, Name(match))
+            : Finding.Of(FindingKind.DrugConsiderWithCaution, Name(match), Slot.Phrase("caution", Finding.Of(caution)));
     }
 
     /// <summary>What clinicians usually weigh before starting a drug of this group (a draft order: nothing to taper yet).</summary>
-    public static string ConsiderationsBeforeStarting(MedicationMatch match)
-    {
-        Guard.NotNull(match, nameof(match));
-        return $"Before starting {Name(match)}, clinicians usually weigh the need for it now against the risk to sodium, and consider an alternative with a lower risk to sodium.";
-    }
+    public static Finding ConsiderationsBeforeStarting(MedicationMatch match)
+        => Finding.Of(FindingKind.DrugConsiderBeforeStarting, Name(match));
 
-    /// <summary>"citalopram, a selective serotonin reuptake inhibitor (SSRI)," as plain text for a summary.</summary>
-    public static string PlainNameWithGroup(MedicationMatch match)
+    /// <summary>"citalopram, a selective serotonin reuptake inhibitor (SSRI)," for a summary.</summary>
+    public static Finding NameWithGroup(MedicationMatch match)
     {
         Guard.NotNull(match, nameof(match));
         var label = match.Set.Label;
-        var article = label.Length > 0 && "aeiouAEIOU".Contains(label[0], StringComparison.Ordinal) ? "an" : "a";
-        return $"{match.Ingredient}, {article} {label},";
+        var vowel = label.Length > 0 && "aeiouAEIOU".Contains(label[0], StringComparison.Ordinal);
+        return Finding.Of(vowel ? FindingKind.DrugNameWithGroupAn : FindingKind.DrugNameWithGroupA, Name(match), Group(match.Set));
     }
 }

@@ -1,5 +1,6 @@
+using System.Globalization;
 using CdsNatremia.Core.Facts;
-using CdsNatremia.Core.Text;
+using CdsNatremia.Core.Findings;
 
 namespace CdsNatremia.Core.Drugs;
 
@@ -13,52 +14,61 @@ namespace CdsNatremia.Core.Drugs;
 /// <item>start strictly before the first low result but nothing before the fall on record: possible;</item>
 /// <item>start at or after the first low result: unlikely (the sodium was already about this low before it began).</item>
 /// </list>
-/// Pure; the fall and the medication carry every time used.
+/// Pure; the fall and the medication carry every time used. The evidence is a finding (its kind names the case, its slots
+/// the times and resources used); the phrase catalogue words it.
 /// </summary>
 public static class DrugTiming
 {
     /// <summary>The verdict and its evidence.</summary>
-    public static TimingEvidence Assess(MedicationFact medication, SodiumFall? fall, TimeDisplay? display = null)
+    public static TimingEvidence Assess(MedicationFact medication, SodiumFall? fall)
     {
-        display ??= TimeDisplay.Utc(default);
         Guard.NotNull(medication, nameof(medication));
         if (medication.Use == MedicationUse.Intended)
         {
-            return new TimingEvidence(TimingVerdict.Unlikely, $"recorded as intended, not yet taken ({Markdown.Escape(medication.Reference)})");
+            return new TimingEvidence(TimingVerdict.Unlikely, Finding.Of(FindingKind.DrugTimingIntended, Slot.Text("reference", medication.Reference)).RestingOn(medication.Reference));
         }
 
         if (medication.StartedAt is not { } start)
         {
-            return new TimingEvidence(TimingVerdict.Possible, "start date not recorded, so its timing against the fall cannot be judged");
+            return new TimingEvidence(TimingVerdict.Possible, Finding.Of(FindingKind.DrugTimingStartUnknown).With(Certainty.Unknown).RestingOn(medication.Reference));
         }
 
-        var started = Invariant.Format($"started {Day(start)} ({Markdown.Escape(medication.StartSource ?? "start")})");
+        // The start day as recorded (UTC date): a date-only start must not move to the day before in a zone west of UTC.
+        var day = Slot.Verbatim("day", start.ToUniversalTime().ToString("yyyy-MM-dd", CultureInfo.InvariantCulture));
+        var started = Slot.Phrase("started", medication.StartSource is { } source
+            ? Finding.Of(FindingKind.DrugTimingStarted, day, Slot.Text("source", source))
+            : Finding.Of(FindingKind.DrugTimingStartedNoSource, day));
         if (fall is null)
         {
-            return new TimingEvidence(TimingVerdict.Possible, started + "; the latest sodium is not low, so there is no fall to set it against");
+            return new TimingEvidence(TimingVerdict.Possible, Finding.Of(FindingKind.DrugTimingNoFall, started).RestingOn(medication.Reference));
         }
 
         if (start >= fall.FirstLow.EffectiveAt)
         {
-            return new TimingEvidence(TimingVerdict.Unlikely, Invariant.Format(
-                $"{started}, on or after {Value(fall.FirstLow, display)}, when sodium was already near its lowest: unlikely to have started the fall, though it can keep sodium low"));
+            return new TimingEvidence(TimingVerdict.Unlikely, Finding.Of(FindingKind.DrugTimingAfterFirstLow, started, SodiumAt("firstLow", fall.FirstLow))
+                .RestingOn(medication.Reference, fall.FirstLow.Reference));
         }
 
         if (fall.Before is not { } before)
         {
-            return new TimingEvidence(TimingVerdict.Possible, Invariant.Format(
-                $"{started}, before the first low result ({Value(fall.FirstLow, display)}); no earlier higher sodium is on record, so when the fall began is unknown"));
+            return new TimingEvidence(TimingVerdict.Possible, Finding.Of(FindingKind.DrugTimingNoBefore, started, SodiumAt("firstLow", fall.FirstLow))
+                .RestingOn(medication.Reference, fall.FirstLow.Reference));
         }
 
-        return start > before.EffectiveAt
-            ? new TimingEvidence(TimingVerdict.Likely, Invariant.Format(
-                $"{started}, after {Value(before, display)} and before {Value(fall.FirstLow, display)}: it began before the fall"))
-            : new TimingEvidence(TimingVerdict.Likely, Invariant.Format(
-                $"{started}, so already taken when sodium was {Value(before, display)}; sodium fell afterwards to {Value(fall.FirstLow, display)}"));
+        var kind = start > before.EffectiveAt ? FindingKind.DrugTimingDuringFall : FindingKind.DrugTimingAlreadyTaken;
+        return new TimingEvidence(TimingVerdict.Likely, Finding.Of(kind, started, SodiumAt("before", before), SodiumAt("firstLow", fall.FirstLow))
+            .With(Certainty.Likely)
+            .RestingOn(medication.Reference, before.Reference, fall.FirstLow.Reference));
     }
 
-    private static string Day(DateTimeOffset at) => at.ToUniversalTime().ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture);
-
-    private static string Value(LabResult result, TimeDisplay display)
-        => Invariant.Format($"{Invariant.Number(result.Value)} mmol/L at {display.Time(result.EffectiveAt)} ({Markdown.Escape(result.Reference)})");
+    /// <summary>"124 mmol/L at 2026-03-10 06:30 UTC (Observation/na-1)" as a nested phrase named <paramref name="slot"/>.</summary>
+    public static Slot SodiumAt(string slot, LabResult result)
+    {
+        Guard.NotNull(result, nameof(result));
+        return Slot.Phrase(slot, Finding.Of(
+            FindingKind.DrugSodiumAt,
+            Slot.Number("value", result.Value),
+            Slot.Time("time", result.EffectiveAt),
+            Slot.Text("reference", result.Reference)));
+    }
 }

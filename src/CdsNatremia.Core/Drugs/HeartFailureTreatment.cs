@@ -1,7 +1,7 @@
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Core.Knowledge;
-using CdsNatremia.Core.Text;
+using CdsNatremia.Core.Findings;
 
 namespace CdsNatremia.Core.Drugs;
 
@@ -36,15 +36,18 @@ public static class HeartFailureTreatment
     public static bool IsTreatment(MedicationMatch match, ConditionFact? heartFailure)
         => heartFailure is not null && string.Equals(Guard.NotNull(match, nameof(match)).Set.Id, LoopDiureticSetId, StringComparison.Ordinal);
 
-    /// <summary>"heart failure (Condition/hf, "Chronic heart failure")".</summary>
-    public static string Cite(ConditionFact heartFailure)
+    /// <summary>"heart failure (Condition/hf, "Chronic heart failure")" as a finding.</summary>
+    public static Finding Cite(ConditionFact heartFailure)
     {
         Guard.NotNull(heartFailure, nameof(heartFailure));
-        var text = string.IsNullOrWhiteSpace(heartFailure.Text) ? string.Empty : ", \"" + Markdown.Escape(heartFailure.Text) + "\"";
-        return $"heart failure ({Markdown.Escape(heartFailure.Reference)}{text})";
+        var reference = Slot.Text("reference", heartFailure.Reference);
+        return (string.IsNullOrWhiteSpace(heartFailure.Text)
+            ? Finding.Of(FindingKind.DrugHeartFailure, reference)
+            : Finding.Of(FindingKind.DrugHeartFailureWithText, reference, Slot.Text("text", heartFailure.Text))).RestingOn(heartFailure.Reference);
     }
 
     /// <summary>What clinicians usually consider for a loop diuretic in heart failure (replaces the review-the-need line).</summary>
-    public static string Considerations(MedicationMatch match, ConditionFact heartFailure)
-        => $"{DrugText.Name(Guard.NotNull(match, nameof(match)))} treats the patient's {Cite(heartFailure)}: a loop diuretic is part of heart-failure treatment and is **not stopped for the sodium**; its dose, fluid intake and the low sodium are reviewed together with the team managing the heart failure (common practice).";
+    public static Finding Considerations(MedicationMatch match, ConditionFact heartFailure)
+        => Finding.Of(FindingKind.DrugHeartFailureConsider, DrugText.Name(Guard.NotNull(match, nameof(match))), Slot.Phrase("heartFailure", Cite(heartFailure)))
+            .RestingOn(heartFailure.Reference);
 }

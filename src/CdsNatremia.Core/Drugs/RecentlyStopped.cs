@@ -1,4 +1,6 @@
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
+using CdsNatremia.Core.Rendering;
 using CdsNatremia.Core.Text;
 
 namespace CdsNatremia.Core.Drugs;
@@ -26,15 +28,22 @@ public static class RecentlyStopped
     /// <summary>True when the record says when use ended (or when it was last recorded), so "recent" is known, not assumed.</summary>
     public static bool IsDated(MedicationFact medication) => Guard.NotNull(medication, nameof(medication)).EndedAt is not null || medication.LastRecordedAt is not null;
 
-    /// <summary>"stopped 2026-03-06 (MedicationStatement/x)", "stopped on or before 2026-03-06 …", "stop date not recorded …" (Markdown-escaped).</summary>
-    public static string When(MedicationFact medication, TimeDisplay display)
+    /// <summary>"stopped 2026-03-06 … (MedicationStatement/x)", "stopped on or before …", "stop date not recorded …" as a finding.</summary>
+    public static Finding Stopped(MedicationFact medication)
     {
         Guard.NotNull(medication, nameof(medication));
-        var reference = Markdown.Escape(medication.Reference);
-        return medication.EndedAt is { } end
-            ? Invariant.Format($"stopped {display.Time(end)} ({reference})")
+        var reference = Slot.Text("reference", medication.Reference);
+        var finding = medication.EndedAt is { } end
+            ? Finding.Of(FindingKind.DrugStoppedEnded, Slot.Time("time", end), reference)
             : medication.LastRecordedAt is { } recorded
-                ? Invariant.Format($"stopped on or before {display.Time(recorded)} ({reference})")
-                : $"stop date not recorded ({reference})";
+                ? Finding.Of(FindingKind.DrugStoppedOnOrBefore, Slot.Time("time", recorded), reference)
+                : Finding.Of(FindingKind.DrugStoppedUndated, reference).With(Certainty.Unknown);
+        return finding.RestingOn(medication.Reference);
     }
+
+    /// <summary>
+    /// <see cref="Stopped"/> worded (Markdown, escaped), for text that is not yet a finding (the SIADH diuretic criterion).
+    /// </summary>
+    public static string When(MedicationFact medication, TimeDisplay display)
+        => PhraseCatalogue.Default.Render(Stopped(medication), Guard.NotNull(display, nameof(display)));
 }

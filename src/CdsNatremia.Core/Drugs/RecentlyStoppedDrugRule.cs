@@ -1,6 +1,6 @@
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
-using CdsNatremia.Core.Text;
+using CdsNatremia.Core.Findings;
 
 namespace CdsNatremia.Core.Drugs;
 
@@ -36,14 +36,16 @@ public sealed class RecentlyStoppedDrugRule : IAssessmentRule
         }
 
         card.RuleIds.Add(RuleId);
-        var days = Invariant.Number(context.Options.DrugCause.RecentlyStoppedWithinDays);
+        var days = Slot.Number("days", context.Options.DrugCause.RecentlyStoppedWithinDays);
         foreach (var (medication, match) in found)
         {
             card.ResourcesUsed.Add(medication.Reference);
             var name = DrugText.Name(match);
-            card.Steps.Add(Invariant.Format(
-                $"**Recently stopped medicine**: {name} ({Markdown.Escape(match.Set.Label)}), {RecentlyStopped.When(medication, context.Display)}, within the {days}-day look-back (from memory: a drug's effect on sodium can outlast the last dose): a **possible contributor**, not a likely one now that it has stopped."));
-            card.Differential.Add(Invariant.Format($"Medicine effect: {name} ({Markdown.Escape(match.Set.Label)}), **recently stopped**: a possible contributor."));
+            var group = DrugText.Group(match.Set);
+            card.Steps.Add(Finding.Of(FindingKind.DrugStoppedStep, name, group, Slot.Phrase("when", RecentlyStopped.Stopped(medication)), days)
+                .With(Certainty.Possible)
+                .RestingOn(medication.Reference));
+            card.Differential.Add(Finding.Of(FindingKind.DrugStoppedCause, name, group).With(Certainty.Possible).RestingOn(medication.Reference));
         }
     }
 }

@@ -1,6 +1,7 @@
 using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Tests.Support;
 
 namespace CdsNatremia.Core.Tests.Clinical;
@@ -20,16 +21,27 @@ public class HeartFailureLoopDiureticTests
     public void Apply_LoopDiureticInHeartFailure_PartOfTreatmentNotStopped()
     {
         var card = SomeClinical.Assessment(Patient(heartFailure: true));
+        var content = card.Content!;
+        Assert.Contains(content.NextSteps, f => f.Kind == FindingKind.DrugHeartFailureConsider);
+        Assert.DoesNotContain(content.NextSteps, f => f.Kind is FindingKind.DrugConsider or FindingKind.DrugConsiderWithCaution);
+        Assert.Contains(content.Causes, f => f.Kind == FindingKind.DrugCauseHeartFailure);
+        // The short card itself says it is not stopped: the likely-cause reason carries it.
+        Assert.Contains(content.Reasons, f => f.Kind == FindingKind.DrugLikelyHeartFailure);
         Assert.Contains("**not stopped for the sodium**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("part of heart-failure treatment", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("clinicians usually consider whether it is still needed", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("part of heart-failure treatment", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("clinicians usually consider whether it is still needed", card.Report, StringComparison.Ordinal);
+        Assert.Contains("heart failure (Condition/hf, \"Chronic heart failure\")", card.Report, StringComparison.Ordinal);
         Assert.Contains("Condition/hf", card.ResourcesUsed);
     }
 
     [Fact]
     public void Apply_LoopDiureticWithoutHeartFailure_UsualReview()
-        => Assert.Contains("clinicians usually consider whether it is still needed",
-            SomeClinical.Assessment(Patient(heartFailure: false)).Detail, StringComparison.Ordinal);
+    {
+        var card = SomeClinical.Assessment(Patient(heartFailure: false));
+        Assert.Contains(card.Content!.NextSteps, f => f.Kind == FindingKind.DrugConsider);
+        Assert.DoesNotContain(card.Content.Reasons, f => f.Kind == FindingKind.DrugLikelyHeartFailure);
+        Assert.Contains("clinicians usually consider whether it is still needed", card.Report, StringComparison.Ordinal);
+    }
 
     [Fact]
     public void Produce_LoopDiureticDraftInHeartFailure_NoRemoveSuggestion()
@@ -39,6 +51,8 @@ public class HeartFailureLoopDiureticTests
         var card = Assert.Single(SomeClinical.Decide(facts, HookKind.OrderSign, [draft]), c => c.Topic == "drug-order-warning");
         Assert.DoesNotContain(card.Suggestions, s => s.Actions.Any(a => a.Kind == ActionKind.Delete));
         Assert.Single(card.Suggestions); // keep and recheck only
+        Assert.Contains(card.Content!.Reasons, f => f.Kind == FindingKind.DrugOrderReasonHeartFailure);
+        Assert.Equal(FindingKind.DrugHeartFailureConsider, card.Content.NextSteps[0].Kind);
         Assert.Contains("**not stopped for the sodium**", card.Detail, StringComparison.Ordinal);
     }
 

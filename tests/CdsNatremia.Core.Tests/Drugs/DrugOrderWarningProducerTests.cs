@@ -2,6 +2,7 @@ using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Drugs;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Tests.Support;
 
 namespace CdsNatremia.Core.Tests.Drugs;
@@ -39,6 +40,75 @@ public class DrugOrderWarningProducerTests
         Assert.Contains("citalopram", card.Summary, StringComparison.Ordinal);
         Assert.Contains("129 mmol/L", card.Summary, StringComparison.Ordinal);
         Assert.Contains("Advisory only", card.Detail, StringComparison.Ordinal);
+        Assert.Equal(FindingKind.DrugOrderHeadlineLow, card.Content!.Headline.Kind);
+        Assert.Equal(new NumberValue(129, null), card.Content.Headline["sodium"]);
+    }
+
+    [Fact]
+    public void Render_SsriDraftAt129_SummaryHeadlineAndSuggestionWording()
+    {
+        // 129 mmol/L: moderate (2014 European guideline); recheck within 7 days: RecheckWithinHours 168 (common practice).
+        var card = Decide(Some.Facts(Some.Sodium(129)), HookKind.OrderSign, [CitalopramDraft]).Single();
+        Assert.Equal(
+            "citalopram, a selective serotonin reuptake inhibitor (SSRI), can lower sodium; sodium is already 129 mmol/L (moderate, 2 h ago).",
+            card.Summary);
+        Assert.StartsWith("**Ordering citalopram, which can lower sodium: sodium is already 129 mmol/L, moderate hyponatremia (2 h ago, 10 Mar 10:00)**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**Next:** Before starting citalopram, clinicians usually weigh the need for it now against the risk to sodium", card.Detail, StringComparison.Ordinal);
+        Assert.Equal("Remove the draft citalopram order", card.Suggestions[0].Label);
+        Assert.Equal("Remove the draft order MedicationRequest/draft-citalopram (citalopram).", card.Suggestions[0].Actions[0].Description);
+        Assert.Equal("Keep the citalopram order and recheck sodium within 7 days", card.Suggestions[1].Label);
+        Assert.Equal("Order Sodium, serum or plasma", card.Suggestions[1].Actions[0].Description);
+        Assert.Equal("citalopram can lower sodium; recheck within 7 days of starting it.", card.Suggestions[1].Actions[0].Create!.Reason);
+        Assert.Contains("**Sodium is already low**: ", card.Report, StringComparison.Ordinal);
+        Assert.Contains("The draft order \"citalopram 10 mg tablet\" (MedicationRequest/draft-citalopram) contains **citalopram**, matched by code RxNorm 2556", card.Report, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Produce_FallingSodium_HeadlineAndReasonCarryTheDrop()
+    {
+        // 140 → 135 within 7 days: a drop of 5 ≥ the meaningful 4 mmol/L (DrugCauseOptions defaults, common practice).
+        var facts = Some.Facts(Some.Sodium(140, hoursAgo: 72, id: "na-140"), Some.Sodium(135, id: "na-135"));
+        var card = Decide(facts, HookKind.OrderSign, [CitalopramDraft]).Single();
+        Assert.Equal(FindingKind.DrugOrderHeadlineFalling, card.Content!.Headline.Kind);
+        var fall = Assert.Single(card.Content.Reasons, f => f.Kind == FindingKind.DrugOrderReasonFalling);
+        Assert.Equal(new NumberValue(5, 1), fall["drop"]);
+        Assert.Contains("sodium is falling: 135 mmol/L, down from 140.", card.Summary, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Produce_ProfoundButStale_CautionSaysRecheckFirst()
+    {
+        // 120 mmol/L, 96 h old: stale beyond the 72-h window (common practice); the card says so among its cautions.
+        var card = Decide(Some.Facts(Some.Sodium(120, 96)), HookKind.OrderSign, [CitalopramDraft]).Single();
+        Assert.Single(card.Content!.Cautions, f => f.Kind == FindingKind.DrugOrderCautionStale);
+        Assert.Contains("**Caution:** The latest sodium is stale (4 days ago)", card.Detail, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData(129.0, 0)]
+    [InlineData(118.0, 0)]
+    [InlineData(131.0, 1)]
+    [InlineData(135.0, 2)]
+    public void Detail_EveryOrderScenario_WithinTheShortCardBudget(double sodium, int variant)
+    {
+        // Short-card budget (CardRenderer.DetailBudget); the richest cards: a combination, a drug already taken, two drafts.
+        var facts = (variant switch
+        {
+            1 => Some.Facts(Some.Sodium(sodium)),
+            2 => Some.Facts(Some.Sodium(140, hoursAgo: 72), Some.Sodium(sodium)),
+            _ => Some.Facts(Some.Sodium(sodium)),
+        }) with
+        {
+            Medications =
+            [
+                SomeDrugs.Statement("hctz", "hydrochlorothiazide 25 mg", Some.Now.AddDays(-40), SomeDrugs.RxNorm("5487")),
+                SomeDrugs.Statement("cit", "citalopram 10 mg", Some.Now.AddDays(-400), SomeDrugs.RxNorm("2556")),
+            ],
+        };
+        var cards = Decide(facts, HookKind.OrderSign, [CitalopramDraft, SomeDrugs.Draft("d-furo", "furosemide 40 mg tablet")]);
+        Assert.NotEmpty(cards);
+        Assert.All(cards, c => Assert.InRange(c.Detail.Length, 1, CdsNatremia.Core.Rendering.CardRenderer.DetailBudget));
+        Assert.All(cards, c => Assert.True(c.Summary.Length < 140)); // CDS Hooks: summary under 140 characters
     }
 
     [Fact]
@@ -91,8 +161,10 @@ public class DrugOrderWarningProducerTests
             Medications = [SomeDrugs.Statement("hctz", "hydrochlorothiazide 25 mg", Some.Now.AddDays(-40), SomeDrugs.RxNorm("5487"))],
         };
         var card = Decide(facts, HookKind.OrderSign, [CitalopramDraft]).Single();
-        Assert.Contains("Medicines acting together", card.Detail, StringComparison.Ordinal);
+        var together = Assert.Single(card.Content!.Reasons, f => f.Kind == FindingKind.DrugOrderReasonTogether);
+        Assert.Equal([new TextValue("hydrochlorothiazide", true)], Assert.IsType<ListValue>(together["names"]).Values);
         Assert.Contains("hydrochlorothiazide", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("**Medicines acting together**: citalopram with hydrochlorothiazide (thiazide or thiazide-like diuretic; already taken, MedicationStatement/hctz)", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -101,7 +173,10 @@ public class DrugOrderWarningProducerTests
         var facts = Some.Facts() with { BirthDate = new DateOnly(1950, 1, 1) };
         var card = Decide(facts, HookKind.OrderSign, [CitalopramDraft]).Single();
         Assert.Equal(CardIndicator.Warning, card.Indicator);
-        Assert.Contains("No recent sodium", card.Detail, StringComparison.Ordinal);
+        Assert.Equal(FindingKind.DrugOrderHeadlineAbsent, card.Content!.Headline.Kind);
+        Assert.Single(card.Content.Steps, f => f.Kind == FindingKind.DrugOrderAbsent && f.Certainty == Certainty.Unknown);
+        // 76 years old on 2026-03-10; age 65 or over and no sodium in 180 days (DrugCauseOptions defaults, common practice).
+        Assert.Contains("**No recent sodium**: no usable sodium in the last 180 days (none is on record), and the patient is 76 years old", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -1,5 +1,8 @@
 using CdsNatremia.Core.Drugs;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
+using CdsNatremia.Core.Rendering;
+using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Tests.Support;
 
 namespace CdsNatremia.Core.Tests.Drugs;
@@ -33,7 +36,9 @@ public class DrugTimingTests
     {
         var evidence = DrugTiming.Assess(Started(null), Fall);
         Assert.Equal(TimingVerdict.Possible, evidence.Verdict);
-        Assert.Contains("not recorded", evidence.Text, StringComparison.Ordinal);
+        Assert.Equal(FindingKind.DrugTimingStartUnknown, evidence.Evidence.Kind);
+        Assert.Equal(Certainty.Unknown, evidence.Evidence.Certainty); // unknown is never normal: the start is not known
+        Assert.Equal(FindingKind.DrugVerdictPossible, evidence.VerdictFinding.Kind);
     }
 
     [Fact]
@@ -51,9 +56,34 @@ public class DrugTimingTests
     public void Assess_StartedDuringTheFall_EvidenceNamesBothResultsAndTheStartSource()
     {
         var evidence = DrugTiming.Assess(Started(Before.EffectiveAt.AddDays(7)), Fall);
-        Assert.Contains("138 mmol/L", evidence.Text, StringComparison.Ordinal);
-        Assert.Contains("124 mmol/L", evidence.Text, StringComparison.Ordinal);
-        Assert.Contains("effectivePeriod.start", evidence.Text, StringComparison.Ordinal);
-        Assert.Equal("likely contributor", evidence.VerdictText);
+        Assert.Equal(FindingKind.DrugTimingDuringFall, evidence.Evidence.Kind);
+        Assert.Equal(Certainty.Likely, evidence.Evidence.Certainty);
+        Assert.Equal(new NumberValue(138, null), Nested(evidence.Evidence, "before")["value"]);
+        Assert.Equal(new NumberValue(124, null), Nested(evidence.Evidence, "firstLow")["value"]);
+        Assert.Equal(new TextValue("effectivePeriod.start", Escape: true), Nested(evidence.Evidence, "started")["source"]);
+        Assert.Equal(FindingKind.DrugVerdictLikely, evidence.VerdictFinding.Kind);
+        Assert.Equal(["MedicationStatement/m1", Before.Reference, FirstLow.Reference], evidence.Evidence.Evidence);
     }
+
+    [Fact]
+    public void Render_StartedDuringTheFall_FullSentenceWithTimesAndResources()
+    {
+        var evidence = DrugTiming.Assess(Started(Before.EffectiveAt.AddDays(7)), Fall);
+        var display = TimeDisplay.Utc(Some.Now);
+        Assert.Equal(
+            "started 2026-02-15 (effectivePeriod.start), after 138 mmol/L at 2026-02-08 12:00 UTC (Observation/na-before) and before 124 mmol/L at 2026-03-10 10:00 UTC (Observation/na-low): it began before the fall",
+            PhraseCatalogue.Default.Render(evidence.Evidence, display));
+        Assert.Equal("likely contributor", PhraseCatalogue.Default.Render(evidence.VerdictFinding, display));
+    }
+
+    [Fact]
+    public void Render_DateOnlyStartInAZoneWestOfUtc_DayAsRecorded()
+    {
+        // A start recorded as a date (midnight UTC) keeps its day; a zone 5 h west of UTC would otherwise show the day before.
+        var west = TimeZoneInfo.CreateCustomTimeZone("test-west", TimeSpan.FromHours(-5), "test-west", "test-west");
+        var evidence = DrugTiming.Assess(Started(new DateTimeOffset(2026, 2, 15, 0, 0, 0, TimeSpan.Zero)), Fall);
+        Assert.StartsWith("started 2026-02-15 (effectivePeriod.start)", PhraseCatalogue.Default.Render(evidence.Evidence, new TimeDisplay(west, Some.Now)), StringComparison.Ordinal);
+    }
+
+    private static Finding Nested(Finding finding, string slot) => Assert.IsType<PhraseValue>(finding[slot]).Finding;
 }
