@@ -40,10 +40,4 @@ public static class RecentlyStopped
                 : Finding.Of(FindingKind.DrugStoppedUndated, reference).With(Certainty.Unknown);
         return finding.RestingOn(medication.Reference);
     }
-
-    /// <summary>
-    /// <see cref="Stopped"/> worded (Markdown, escaped), for text that is not yet a finding (the SIADH diuretic criterion).
-    /// </summary>
-    public static string When(MedicationFact medication, TimeDisplay display)
-        => PhraseCatalogue.Default.Render(Stopped(medication), Guard.NotNull(display, nameof(display)));
 }

@@ -110,13 +110,13 @@ public sealed record DiureticExposure(MedicationFact Medication, MedicationMatch
     public bool InUseAt(DateTimeOffset at) => Medication.Use == MedicationUse.Active && (Medication.StartedAt is not { } start || start <= at);
 
     /// <summary>"metolazone (thiazide or thiazide-like diuretic, MedicationStatement/s07-mtz, since 2026-02-24 00:00 UTC)".</summary>
-    public Finding Describe(TimeDisplay display)
+    public Finding Describe()
     {
         var drug = Slot.Text("drug", Match.Ingredient);
         var set = Slot.Text("set", Match.Set.Label);
         if (Medication.Use == MedicationUse.Stopped)
         {
-            return Finding.Of(FindingKind.DiureticDescribeStopped, drug, set, Slot.Verbatim("when", RecentlyStopped.When(Medication, display))).RestingOn(Medication.Reference);
+            return Finding.Of(FindingKind.DiureticDescribeStopped, drug, set, Slot.Phrase("when", RecentlyStopped.Stopped(Medication))).RestingOn(Medication.Reference);
         }
 
         var since = Medication.StartedAt is { } start

@@ -35,7 +35,7 @@ public sealed class NotHypotonicRule : IAssessmentRule
         if (t.GlucoseIsHigh)
         {
             spoke = true;
-            GlucoseCorrection(t, options, card, context.Display);
+            GlucoseCorrection(t, options, card);
         }
 
         if (t.Band == Tonicity.Isotonic && t.Method == OsmolalityMethod.Measured)
@@ -65,9 +65,8 @@ public sealed class NotHypotonicRule : IAssessmentRule
         }
     }
 
-    private static void GlucoseCorrection(TonicityAssessment t, WorkupOptions options, AssessmentBuilder card, TimeDisplay display)
+    private static void GlucoseCorrection(TonicityAssessment t, WorkupOptions options, AssessmentBuilder card)
     {
-        _ = display;
         var mgPerDl = t.GlucoseMgPerDl!.Value;
         var na = t.Sodium.Value;
         var katz = Math.Round(OsmolalityFormulas.KatzCorrectedSodium(na, mgPerDl), 1);

@@ -144,7 +144,7 @@ public sealed class SiadhChecklistRule : IAssessmentRule
         var observed = DiureticExposure.Observe(context);
         Finding Found(IReadOnlyList<DiureticExposure> found) => Finding.Of(
             FindingKind.SiadhDataDiureticsFound,
-            Slot.List("drugs", found.Select(d => (SlotValue)new PhraseValue(d.Describe(context.Display))), "; "));
+            Slot.List("drugs", found.Select(d => (SlotValue)new PhraseValue(d.Describe())), "; "));
         return observed.Match(
             found => new SiadhCriterion(name, CriterionStatus.NotMet, Found(found)),
             found => new SiadhCriterion(name, CriterionStatus.NotMet, Found(found)),

@@ -51,7 +51,7 @@ public sealed record UrineStudies
     }
 
     /// <summary>The result cited with its labels (timing against the serum sodium, diuretic in use).</summary>
-    public Finding CiteWithLabels(LabResult urine, LabResult serumSodium, WorkupOptions options, TimeDisplay display)
+    public Finding CiteWithLabels(LabResult urine, LabResult serumSodium, WorkupOptions options)
     {
         Guard.NotNull(urine, nameof(urine));
         Guard.NotNull(serumSodium, nameof(serumSodium));
@@ -69,7 +69,7 @@ public sealed record UrineStudies
         var onDiuretic = Diuretics.Where(d => d.InUseAt(urine.EffectiveAt)).ToList();
         if (onDiuretic.Count > 0)
         {
-            labels.Add(new PhraseValue(Finding.Of(FindingKind.UrineLabelDiuretic, Slot.List("drugs", onDiuretic.Select(d => (SlotValue)new PhraseValue(d.Describe(display))), "; "))));
+            labels.Add(new PhraseValue(Finding.Of(FindingKind.UrineLabelDiuretic, Slot.List("drugs", onDiuretic.Select(d => (SlotValue)new PhraseValue(d.Describe())), "; "))));
         }
 
         return labels.Count == 0

@@ -41,7 +41,7 @@ public sealed class UrineStudiesRule : IAssessmentRule
         if (urine.Osmolality is { } osm)
         {
             card.ResourcesUsed.Add(osm.Reference);
-            var cited = Slot.Phrase("cited", urine.CiteWithLabels(osm, serum, options, context.Display));
+            var cited = Slot.Phrase("cited", urine.CiteWithLabels(osm, serum, options));
             if (urine.IsDilute)
             {
                 var sodiumNote = urine.Sodium is { } una
@@ -68,7 +68,7 @@ public sealed class UrineStudiesRule : IAssessmentRule
         }
 
         card.ResourcesUsed.Add(una2.Reference);
-        var cited2 = Slot.Phrase("cited", urine.CiteWithLabels(una2, serum, options, context.Display));
+        var cited2 = Slot.Phrase("cited", urine.CiteWithLabels(una2, serum, options));
         var onDiuretic = urine.DiureticsAtUrineSodium.Count > 0;
         var sodium = Slot.Number("sodium", una2.Value);
         if (una2.Value <= options.LowUrineSodiumAtOrBelow)

@@ -66,13 +66,13 @@ public sealed class VolumeCluesRule : IAssessmentRule
         foreach (var diuretic in DiureticExposure.Find(context))
         {
             card.ResourcesUsed.Add(diuretic.Medication.Reference);
-            clues.Add(new PhraseValue(Finding.Of(FindingKind.VolumeClueDiuretic, Slot.Phrase("drug", diuretic.Describe(context.Display)))));
+            clues.Add(new PhraseValue(Finding.Of(FindingKind.VolumeClueDiuretic, Slot.Phrase("drug", diuretic.Describe()))));
         }
 
         foreach (var stopped in DiureticExposure.FindRecentlyStopped(context))
         {
             card.ResourcesUsed.Add(stopped.Medication.Reference);
-            clues.Add(new PhraseValue(Finding.Of(FindingKind.VolumeClueDiureticStopped, Slot.Phrase("drug", stopped.Describe(context.Display)))));
+            clues.Add(new PhraseValue(Finding.Of(FindingKind.VolumeClueDiureticStopped, Slot.Phrase("drug", stopped.Describe()))));
         }
 
         // Set-aside data is not "no clue": a medicine that could not be read makes diuretic use unknown, named by its own text.
