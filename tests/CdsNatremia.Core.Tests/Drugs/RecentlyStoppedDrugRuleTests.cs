@@ -66,6 +66,6 @@ public class RecentlyStoppedDrugRuleTests
         // No date at all: "recent" is assumed, never known (the cautious reading); the finding says unknown.
         Assert.Equal(FindingKind.DrugStoppedUndated, undated.Kind);
         Assert.Equal(Certainty.Unknown, undated.Certainty);
-        Assert.Equal("stop date not recorded (MedicationStatement/hctz-old)", RecentlyStopped.When(Thiazide(null), display));
+        Assert.Equal("stop date not recorded (MedicationStatement/hctz-old)", PhraseCatalogue.Default.Render(undated, display));
     }
 }
