@@ -146,10 +146,11 @@ public sealed class CorrectionRateCardProducer : ICardProducer
             Summary = summary,
             Headline = headline,
             Reasons = reasons,
-            Steps = [.. Steps(episode, day, twoDays, options), RateText.HighRisk(factors, limits, options)],
+            Steps = [.. stale ? [RateText.StaleStep(context.Sodium.StaleAfterHours)] : Array.Empty<Finding>(), .. Steps(episode, day, twoDays, options), RateText.HighRisk(factors, limits, options)],
             NextSteps =
             [
                 Finding.Of(FindingKind.RateFastNextPause),
+                Finding.Of(FindingKind.RateFastNextPauseWhat),
                 Finding.Of(past ? FindingKind.RateFastNextRelower : FindingKind.RateFastNextSlow),
                 Finding.Of(FindingKind.RateFastNextRecheck),
                 Finding.Of(FindingKind.RateFastNextChronic),
@@ -268,7 +269,7 @@ public sealed class CorrectionRateCardProducer : ICardProducer
                     Slot.Text("limits", limits.Name)),
                 RateText.HighRisk(factors, limits, options),
             ],
-            NextSteps = [Finding.Of(FindingKind.RateSlowNextTreatment), Finding.Of(FindingKind.RateSlowNextRecheck)],
+            NextSteps = [Finding.Of(FindingKind.RateSlowNextRecheck), Finding.Of(FindingKind.RateSlowNextTreatment)],
             Cautions = RateText.HighRiskCaution(factors, limits) is { } caution ? [caution] : [],
             Sources = RateText.Sources(limits),
         };

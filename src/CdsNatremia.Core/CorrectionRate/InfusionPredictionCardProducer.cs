@@ -236,10 +236,9 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
             reasons.Add(RateText.Cited(FindingKind.RateInfusionSerum, serum).Weighted(Weights.Context));
             if (p.Stale)
             {
-                cautions.Add(Finding.Of(
-                    FindingKind.RateInfusionSerumStale,
-                    RateText.Hours("age", context.Sodium.LatestAgeHours ?? 0),
-                    RateText.Hours("stale", context.Sodium.StaleAfterHours)).RestingOn(serum.Reference));
+                Slot[] ages = [RateText.Hours("age", context.Sodium.LatestAgeHours ?? 0), RateText.Hours("stale", context.Sodium.StaleAfterHours)];
+                cautions.Add(Finding.Of(FindingKind.RateInfusionSerumStale, ages).RestingOn(serum.Reference));
+                steps.Add(Finding.Of(FindingKind.RateInfusionSerumStaleStep, ages).RestingOn(serum.Reference));
             }
         }
         else
@@ -266,9 +265,16 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
         foreach (var comparison in p.Urine)
         {
             var compared = Slot.List("compared", comparison.Lines.Select(l => (SlotValue)new PhraseValue(l)), "; ");
-            reasons.Add(comparison.MayFall
-                ? Finding.Of(FindingKind.RateInfusionUrineMayFall, Slot.Phrase("fluid", comparison.Infusate.Name), compared).Weighted(Weights.Culprit)
-                : Finding.Of(FindingKind.RateInfusionUrineHolds, Slot.Phrase("fluid", comparison.Infusate.Name), compared).Weighted(Weights.Cause));
+            var name = Slot.Phrase("fluid", comparison.Infusate.Name);
+            if (comparison.MayFall)
+            {
+                reasons.Add(Finding.Of(FindingKind.RateInfusionUrineMayFall, name, compared).Weighted(Weights.Urgent));
+                steps.Add(Finding.Of(FindingKind.RateInfusionUrineMayFallWhy, name));
+            }
+            else
+            {
+                reasons.Add(Finding.Of(FindingKind.RateInfusionUrineHolds, name, compared).Weighted(Weights.Cause));
+            }
         }
 
         if (p.Allowance is { } a)
@@ -296,8 +302,10 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
             next.Add(Finding.Of(FindingKind.RateInfusionNextWeight));
         }
 
-        next.Add(Finding.Of(FindingKind.RateInfusionNextFit));
-        next.Add(Finding.Of(FindingKind.RateInfusionNextRecheck));
+        // Near or above the allowance, the fit with the limits comes first; otherwise the recheck.
+        var fit = Finding.Of(FindingKind.RateInfusionNextFit);
+        var recheck = Finding.Of(FindingKind.RateInfusionNextRecheck);
+        next.AddRange(p.Verdict is Verdict.LimitReached or Verdict.WouldExceed or Verdict.Close ? [fit, recheck] : [recheck, fit]);
         next.Add(Finding.Of(FindingKind.RateInfusionNextUrine));
 
         return new CardContent

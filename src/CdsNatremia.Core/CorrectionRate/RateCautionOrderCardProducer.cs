@@ -168,7 +168,7 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
         var content = new CardContent
         {
             Summary = Finding.Of(overcorrected is not null ? FindingKind.RateDesmopressinSummaryRelowering : FindingKind.RateDesmopressinSummary, nameSlot),
-            Headline = Finding.Of(FindingKind.RateDesmopressinHeadline, nameSlot).RestingOn([.. matches.Select(m => m.Order.Reference)]),
+            Headline = Finding.Of(overcorrected is not null ? FindingKind.RateDesmopressinHeadlineRelowering : FindingKind.RateDesmopressinHeadline, nameSlot).RestingOn([.. matches.Select(m => m.Order.Reference)]),
             Reasons = reasons,
             Steps = allowance?.Describe(context.Options.CorrectionRate) ?? [],
             NextSteps = [Finding.Of(FindingKind.RateDesmopressinNextCheck), Finding.Of(FindingKind.RateDesmopressinNextSenior)],

@@ -139,6 +139,9 @@ internal static class RateText
     /// <summary>The stale-sodium caution: recheck before acting.</summary>
     public static Finding Stale(double staleAfterHours) => Finding.Of(FindingKind.RateStale, Hours("hours", staleAfterHours));
 
+    /// <summary>The stale-sodium step of the report, in full.</summary>
+    public static Finding StaleStep(double staleAfterHours) => Finding.Of(FindingKind.RateStaleStep, Hours("hours", staleAfterHours));
+
     /// <summary>A cited result after a label phrase ("Latest: …").</summary>
     public static Finding Cited(string kind, LabResult result) => Finding.Of(kind, Slot.Result("result", result)).RestingOn(result.Reference);
 

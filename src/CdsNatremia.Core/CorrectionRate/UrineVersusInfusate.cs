@@ -51,7 +51,8 @@ public sealed record UrineVersusInfusate(LabResult? Osmolality, LabResult? Sodiu
             lines.Add(Finding.Of(
                 above ? FindingKind.RateUrineOsmolalityAbove : FindingKind.RateUrineOsmolalityNotAbove,
                 Slot.Number("osmolality", osm.Value),
-                Slot.Result("result", osm),
+                Slot.Text("ref", osm.Reference),
+                Slot.Time("time", osm.EffectiveAt),
                 Slot.Number("fluid", infusate.Osmolality)).RestingOn(osm.Reference));
         }
 
@@ -69,8 +70,8 @@ public sealed record UrineVersusInfusate(LabResult? Osmolality, LabResult? Sodiu
                     Slot.Number("sodium", una.Value),
                     Slot.Number("potassium", uk.Value),
                     Slot.Number("sum", sum),
-                    Slot.Result("sodiumResult", una),
-                    Slot.Result("potassiumResult", uk),
+                    Slot.Text("sodiumRef", una.Reference),
+                    Slot.Text("potassiumRef", uk.Reference),
                     fluid).RestingOn(una.Reference, uk.Reference));
             }
             else
@@ -80,7 +81,8 @@ public sealed record UrineVersusInfusate(LabResult? Osmolality, LabResult? Sodiu
                 lines.Add(Finding.Of(
                     above ? FindingKind.RateUrineSodiumAloneAbove : FindingKind.RateUrineSodiumAloneNotAbove,
                     Slot.Number("sodium", una.Value),
-                    Slot.Result("result", una),
+                    Slot.Text("ref", una.Reference),
+                    Slot.Time("time", una.EffectiveAt),
                     fluid).RestingOn(una.Reference));
             }
         }

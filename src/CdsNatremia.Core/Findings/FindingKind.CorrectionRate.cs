@@ -135,6 +135,9 @@ public static partial class FindingKind
     /// <summary>Phrase <c>rate.stale</c>.</summary>
     public const string RateStale = "rate.stale";
 
+    /// <summary>Phrase <c>rate.stale.step</c>.</summary>
+    public const string RateStaleStep = "rate.stale.step";
+
     /// <summary>Phrase <c>rate.fast.summary.passed</c>.</summary>
     public const string RateFastSummaryPassed = "rate.fast.summary.passed";
 
@@ -194,6 +197,9 @@ public static partial class FindingKind
 
     /// <summary>Phrase <c>rate.fast.next.pause</c>.</summary>
     public const string RateFastNextPause = "rate.fast.next.pause";
+
+    /// <summary>Phrase <c>rate.fast.next.pause.what</c>.</summary>
+    public const string RateFastNextPauseWhat = "rate.fast.next.pause.what";
 
     /// <summary>Phrase <c>rate.fast.next.relower</c>.</summary>
     public const string RateFastNextRelower = "rate.fast.next.relower";
@@ -372,6 +378,9 @@ public static partial class FindingKind
     /// <summary>Phrase <c>rate.infusion.serum-stale</c>.</summary>
     public const string RateInfusionSerumStale = "rate.infusion.serum-stale";
 
+    /// <summary>Phrase <c>rate.infusion.serum-stale.step</c>.</summary>
+    public const string RateInfusionSerumStaleStep = "rate.infusion.serum-stale.step";
+
     /// <summary>Phrase <c>rate.infusion.no-serum</c>.</summary>
     public const string RateInfusionNoSerum = "rate.infusion.no-serum";
 
@@ -386,6 +395,9 @@ public static partial class FindingKind
 
     /// <summary>Phrase <c>rate.infusion.urine.may-fall</c>.</summary>
     public const string RateInfusionUrineMayFall = "rate.infusion.urine.may-fall";
+
+    /// <summary>Phrase <c>rate.infusion.urine.may-fall.why</c>.</summary>
+    public const string RateInfusionUrineMayFallWhy = "rate.infusion.urine.may-fall.why";
 
     /// <summary>Phrase <c>rate.infusion.urine.holds</c>.</summary>
     public const string RateInfusionUrineHolds = "rate.infusion.urine.holds";
@@ -485,6 +497,9 @@ public static partial class FindingKind
 
     /// <summary>Phrase <c>rate.desmopressin.headline</c>.</summary>
     public const string RateDesmopressinHeadline = "rate.desmopressin.headline";
+
+    /// <summary>Phrase <c>rate.desmopressin.headline.relowering</c>.</summary>
+    public const string RateDesmopressinHeadlineRelowering = "rate.desmopressin.headline.relowering";
 
     /// <summary>Phrase <c>rate.desmopressin.lowers</c>.</summary>
     public const string RateDesmopressinLowers = "rate.desmopressin.lowers";

@@ -38,7 +38,7 @@ public class ClinicalNumberTests
 
     private static string InfusionDetail(PatientFacts facts, string order = "sodium chloride 0.9%", double millilitres = 1000)
         => Assert.Single(SomeClinical.Decide(facts, HookKind.OrderSign, [SomeClinical.Draft("o", order, millilitres, "intravenous")]),
-            c => c.Topic == InfusionPredictionCardProducer.Topic).Detail;
+            c => c.Topic == InfusionPredictionCardProducer.Topic).Report;
 
     [Fact]
     public void BodyWater_WomanOf75_FractionPrintedAs045NotAs05()
@@ -100,8 +100,8 @@ public class ClinicalNumberTests
     {
         // 3.45 < 3.5 (common practice lower limit): the card printed "3.5 … below … 3.5" before.
         var card = SomeClinical.Assessment(Some.Facts(Some.Sodium(122, 2), Some.Lab(Analyte.Potassium, 3.45, 2)));
-        Assert.Contains("low potassium: 3.45 mmol/L", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("of 3.5 mmol/L", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("low potassium: 3.45 mmol/L", card.Report, StringComparison.Ordinal);
+        Assert.Contains("of 3.5 mmol/L", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -112,7 +112,7 @@ public class ClinicalNumberTests
         var facts = Some.Facts(Some.Sodium(104, 20), Some.Sodium(111, 1));
         var cards = SomeClinical.Decide(facts, options: options);
         var rate = Assert.Single(cards, c => c.Topic == CorrectionRateCardProducer.Topic);
-        Assert.Contains("7.25 mmol/L in any 24 h", rate.Detail, StringComparison.Ordinal);
-        Assert.Contains("no more than 7.25 mmol/L in any 24 h", Assert.Single(cards, c => c.Topic == "sodium-assessment").Detail, StringComparison.Ordinal);
+        Assert.Contains("7.25 mmol/L in any 24 h", rate.Report, StringComparison.Ordinal);
+        Assert.Contains("no more than 7.25 mmol/L in any 24 h", Assert.Single(cards, c => c.Topic == "sodium-assessment").Report, StringComparison.Ordinal);
     }
 }
