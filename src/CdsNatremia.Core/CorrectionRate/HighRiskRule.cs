@@ -62,7 +62,7 @@ public sealed class HighRiskRule : IAssessmentRule
 
         // A patient-specific caution: short on the card; the full statement and the check itself in the reasoning.
         card.Cautions.Add(RateText.HighRiskCaution(factors, limits)!);
-        card.Steps.Add(Finding.Of(FindingKind.RateHighRiskStatement, RateText.Factors(factors), day).RestingOn(evidence).Weighted(Weights.Pace));
+        card.Steps.Add(Finding.Of(FindingKind.RateHighRiskStatement, RateText.Factors(factors), day).RestingOn(evidence));
         card.Steps.Add(Finding.Of(
             FindingKind.RateHighRiskStep,
             Slot.Number("nadir", options.HighRiskNadirAtOrBelow),

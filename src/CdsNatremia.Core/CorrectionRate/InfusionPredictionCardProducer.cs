@@ -355,7 +355,7 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
         var reference = Slot.Text("ref", order.Reference);
         if (o.Recognition.Infusate is not { } infusate)
         {
-            return Finding.Of(FindingKind.RateInfusionStepUnread, name, reference, route, volume, Slot.Text("how", o.Recognition.How)).RestingOn(order.Reference);
+            return Finding.Of(FindingKind.RateInfusionStepUnread, name, reference, route, volume, Slot.Phrase("how", o.Recognition.How)).RestingOn(order.Reference);
         }
 
         Slot[] content = [Slot.Number("sodium", infusate.Sodium), Slot.Number("potassium", infusate.Potassium)];
@@ -380,7 +380,7 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
 
         return Finding.Of(
             FindingKind.RateInfusionStepOrder,
-            [name, reference, route, volume, Slot.Phrase("fluid", infusate.Name), Slot.Text("how", o.Recognition.How), .. content, Slot.Phrase("prediction", tail)]).RestingOn(order.Reference);
+            [name, reference, route, volume, Slot.Phrase("fluid", infusate.Name), Slot.Phrase("how", o.Recognition.How), .. content, Slot.Phrase("prediction", tail)]).RestingOn(order.Reference);
     }
 
     /// <summary>An order's prediction: per litre (for the patient's water, or for an example weight), and for its volume.</summary>

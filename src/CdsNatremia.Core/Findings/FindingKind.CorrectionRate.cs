@@ -512,4 +512,19 @@ public static partial class FindingKind
 
     /// <summary>Phrase <c>rate.desmopressin.next.senior</c>.</summary>
     public const string RateDesmopressinNextSenior = "rate.desmopressin.next.senior";
+
+    /// <summary>Phrase <c>rate.how.name</c>.</summary>
+    public const string RateHowName = "rate.how.name";
+
+    /// <summary>Phrase <c>rate.how.rxnorm</c>.</summary>
+    public const string RateHowRxnorm = "rate.how.rxnorm";
+
+    /// <summary>Phrase <c>rate.how.strength</c>.</summary>
+    public const string RateHowStrength = "rate.how.strength";
+
+    /// <summary>Phrase <c>rate.how.concentration</c>.</summary>
+    public const string RateHowConcentration = "rate.how.concentration";
+
+    /// <summary>Phrase <c>rate.how.matched</c>.</summary>
+    public const string RateHowMatched = "rate.how.matched";
 }

@@ -70,7 +70,7 @@ public class RatePhraseTests
             Slot.Phrase("route", Finding.Of(FindingKind.RateInfusionRouteNotStated)),
             Slot.Phrase("volume", Finding.Of(FindingKind.RateInfusionVolume, Slot.Number("ml", 150))),
             Slot.Phrase("fluid", Infusate.Of(InfusateKind.Saline3, new InfusionOptions()).Name),
-            Slot.Text("how", "concentration in the order text"),
+            Slot.Phrase("how", Finding.Of(FindingKind.RateHowConcentration)),
             Slot.Number("sodium", 513),
             Slot.Number("potassium", 0),
             Slot.Phrase("prediction", prediction));
