@@ -123,17 +123,23 @@ internal static class RateText
                 .RestingOn([.. factors.Select(f => f.Reference).OfType<string>()]);
     }
 
+    /// <summary>The most high-risk factors a short caution names.</summary>
+    public const int MaxFactorsNamed = 2;
+
     /// <summary>The short patient-specific caution for the card when the patient is at high risk; null otherwise.</summary>
     public static Finding? HighRiskCaution(IReadOnlyList<HighRiskFactor> factors, CorrectionLimits limits)
     {
         Guard.NotNull(factors, nameof(factors));
         Guard.NotNull(limits, nameof(limits));
-        return factors.Count == 0
-            ? null
-            : Finding.Of(
-                FindingKind.RateHighRiskCaution,
-                Slot.List("names", factors.Select(f => (SlotValue)new PhraseValue(f.Name))),
-                Slot.Number("day", limits.HighRiskDay)).RestingOn([.. factors.Select(f => f.Reference).OfType<string>()]);
+        // Up to two factors are named; more are counted (all are named in the report), so the caution stays short.
+        var day = Slot.Number("day", limits.HighRiskDay);
+        var caution = factors.Count switch
+        {
+            0 => null,
+            <= MaxFactorsNamed => Finding.Of(FindingKind.RateHighRiskCaution, Slot.List("names", factors.Select(f => (SlotValue)new PhraseValue(f.Name))), day),
+            _ => Finding.Of(FindingKind.RateHighRiskCautionMany, Slot.Count("count", factors.Count), day),
+        };
+        return caution?.RestingOn([.. factors.Select(f => f.Reference).OfType<string>()]);
     }
 
     /// <summary>The stale-sodium caution: recheck before acting.</summary>

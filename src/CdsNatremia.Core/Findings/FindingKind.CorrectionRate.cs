@@ -90,6 +90,9 @@ public static partial class FindingKind
     /// <summary>Phrase <c>rate.high-risk.caution</c>.</summary>
     public const string RateHighRiskCaution = "rate.high-risk.caution";
 
+    /// <summary>Phrase <c>rate.high-risk.caution.many</c>.</summary>
+    public const string RateHighRiskCautionMany = "rate.high-risk.caution.many";
+
     /// <summary>Phrase <c>rate.high-risk.statement</c>.</summary>
     public const string RateHighRiskStatement = "rate.high-risk.statement";
 

@@ -92,6 +92,17 @@ public class RatePhraseTests
     }
 
     [Fact]
+    public void HighRiskCaution_ThreeFactors_CountedToStayShort()
+    {
+        // US expert panel (Verbalis et al. 2013): sodium ≤ 105, low potassium and advanced liver disease (ICD-10 K74, from memory).
+        var facts = Some.Facts(Some.Sodium(104, 2), Some.Lab(Analyte.Potassium, 3.1, 2)) with { Conditions = [SomeClinical.Condition("c", "K74.6", "Cirrhosis")] };
+        var options = new CorrectionRateOptions();
+        var factors = HighRiskFactors.Find(facts, facts.Labs[0], SomeClinical.Knowledge, options);
+        Assert.Equal(3, factors.Count);
+        Assert.Equal("High risk of osmotic demyelination (3 factors): ≤ 8 mmol/L in any 24 h.", Say(RateText.HighRiskCaution(factors, options.Resolve())!));
+    }
+
+    [Fact]
     public void UrineComparison_SumAboveTheFluid_SaysAbove()
     {
         // Steele et al. 1997: urine sodium + potassium above the fluid's sodium + potassium (0.9% saline, 154 + 0) → may fall.
