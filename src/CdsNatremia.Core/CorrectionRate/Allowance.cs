@@ -1,6 +1,6 @@
-using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 
 namespace CdsNatremia.Core.CorrectionRate;
 
@@ -32,7 +32,7 @@ public sealed record Allowance(CorrectionEpisode Episode, RateWindow Day, RateWi
         }
 
         var limits = options.Resolve();
-        var factors = HighRiskFactors.Find(context.Request.Facts, HighRiskFactors.LowestOfLowStretch(context.Sodium, episode.Nadir, context.Thresholds.NormalFrom), context.Knowledge, options, context.Display);
+        var factors = HighRiskFactors.Find(context.Request.Facts, HighRiskFactors.LowestOfLowStretch(context.Sodium, episode.Nadir, context.Thresholds.NormalFrom), context.Knowledge, options);
         var now = context.Request.Now;
         var at = episode.Latest.EffectiveAt > now ? episode.Latest.EffectiveAt : now;
         return new Allowance(
@@ -62,22 +62,23 @@ public sealed record Allowance(CorrectionEpisode Episode, RateWindow Day, RateWi
     /// </summary>
     public RateWindow? Overcorrected => new[] { Day, TwoDays }.FirstOrDefault(w => w.Status == RateStatus.AtOrPast || w.PassedAt is not null);
 
-    /// <summary>Lines for a card: where the correction stands and what is left.</summary>
-    public IReadOnlyList<string> Describe(CorrectionRateOptions options, TimeDisplay display)
+    /// <summary>Where the correction stands and what is left, as reasoning steps for a card's report.</summary>
+    public IReadOnlyList<Finding> Describe(CorrectionRateOptions options)
     {
-        Guard.NotNull(display, nameof(display));
         Guard.NotNull(options, nameof(options));
-        var lines = new List<string>();
+        var lines = new List<Finding>();
         if (!Episode.IsRising)
         {
-            lines.Add(Invariant.Format(
-                $"No rise measured yet in this episode: the latest sodium is the lowest ({RateText.Mmol(Episode.Nadir.Value)} at {display.Time(Episode.Nadir.EffectiveAt)}), so the windows count from that result."));
+            lines.Add(Finding.Of(FindingKind.RateAllowanceNoRise, Slot.Number("nadir", Episode.Nadir.Value), Slot.Time("time", Episode.Nadir.EffectiveAt)).RestingOn(Episode.Nadir.Reference));
         }
 
-        lines.Add(RateText.Window(Day, options, display));
-        lines.Add(RateText.Window(TwoDays, options, display));
-        lines.Add(RateText.HighRisk(Factors, Limits));
-        lines.Add(Invariant.Format($"**Allowance left now**: {RateText.Mmol(Math.Max(0, Remaining))} (the smaller of the two windows; {Binding.LimitLabel})."));
+        lines.Add(RateText.Window(Day, options));
+        lines.Add(RateText.Window(TwoDays, options));
+        lines.Add(RateText.HighRisk(Factors, Limits, options));
+        lines.Add(LeftNow);
         return lines;
     }
+
+    /// <summary>The allowance left now (never below 0), with the window that binds.</summary>
+    public Finding LeftNow => Finding.Of(FindingKind.RateAllowanceLeft, Slot.Number("remaining", Math.Max(0, Remaining)), Slot.Phrase("label", Binding.LimitLabel));
 }

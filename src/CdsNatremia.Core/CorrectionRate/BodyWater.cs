@@ -1,12 +1,13 @@
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 
 namespace CdsNatremia.Core.CorrectionRate;
 
 /// <summary>Total body water estimate: weight × a fraction chosen by age and sex, with the reason for the fraction.</summary>
 /// <param name="WeightKg">The weight used, kg.</param>
 /// <param name="Fraction">The fraction of weight that is water.</param>
-/// <param name="Why">Why this fraction, in plain words (and any assumption made).</param>
-public sealed record BodyWater(double WeightKg, double Fraction, string Why)
+/// <param name="Why">Why this fraction (and any assumption made), as a phrase.</param>
+public sealed record BodyWater(double WeightKg, double Fraction, Finding Why)
 {
     /// <summary>Total body water, litres.</summary>
     public double Litres => WeightKg * Fraction;
@@ -22,21 +23,21 @@ public sealed record BodyWater(double WeightKg, double Fraction, string Why)
         Guard.NotNull(options, nameof(options));
         if (age is { } a && a < options.ChildUnderAge)
         {
-            return new(weightKg, options.WaterFractionChildOrYoungerMan, Invariant.Format($"child (age {a} years)"));
+            return new(weightKg, options.WaterFractionChildOrYoungerMan, Finding.Of(FindingKind.RateWaterChild, Slot.Count("age", a)));
         }
 
         var older = age >= options.OlderFromAge;
-        var ageText = age is { } known ? Invariant.Format($"age {known} years") : "age unknown";
+        Finding Why(string kind) => age is { } known ? Finding.Of(kind, Slot.Count("age", known)) : Finding.Of(kind);
         return (sex, age) switch
         {
-            (PatientSex.Male, not null) => new(weightKg, older ? options.WaterFractionOlderMan : options.WaterFractionChildOrYoungerMan, $"man, {ageText}"),
-            (PatientSex.Female, not null) => new(weightKg, older ? options.WaterFractionOlderWoman : options.WaterFractionYoungerWoman, $"woman, {ageText}"),
-            (PatientSex.Male, null) => new(weightKg, options.WaterFractionOlderMan, "man, age unknown: the smaller (older) fraction is used, which predicts the larger change"),
-            (PatientSex.Female, null) => new(weightKg, options.WaterFractionOlderWoman, "woman, age unknown: the smaller (older) fraction is used, which predicts the larger change"),
+            (PatientSex.Male, not null) => new(weightKg, older ? options.WaterFractionOlderMan : options.WaterFractionChildOrYoungerMan, Why(FindingKind.RateWaterMan)),
+            (PatientSex.Female, not null) => new(weightKg, older ? options.WaterFractionOlderWoman : options.WaterFractionYoungerWoman, Why(FindingKind.RateWaterWoman)),
+            (PatientSex.Male, null) => new(weightKg, options.WaterFractionOlderMan, Why(FindingKind.RateWaterManAgeUnknown)),
+            (PatientSex.Female, null) => new(weightKg, options.WaterFractionOlderWoman, Why(FindingKind.RateWaterWomanAgeUnknown)),
             _ => new(
                 weightKg,
                 older || age is null ? options.WaterFractionOlderWoman : options.WaterFractionYoungerWoman,
-                $"sex not recorded as male or female, {ageText}: the smaller fraction is used, which predicts the larger change"),
+                Why(age is null ? FindingKind.RateWaterSexUnknownAgeUnknown : FindingKind.RateWaterSexUnknown)),
         };
     }
 }

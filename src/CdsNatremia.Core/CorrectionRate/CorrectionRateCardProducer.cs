@@ -1,8 +1,8 @@
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
-using CdsNatremia.Core.Facts;
-using CdsNatremia.Core.Text;
+using CdsNatremia.Core.Findings;
+using CdsNatremia.Core.Rendering;
 
 namespace CdsNatremia.Core.CorrectionRate;
 
@@ -44,7 +44,7 @@ public sealed class CorrectionRateCardProducer : ICardProducer
         }
 
         var limits = options.Resolve();
-        var factors = HighRiskFactors.Find(request.Facts, HighRiskFactors.LowestOfLowStretch(context.Sodium, episode.Nadir, context.Thresholds.NormalFrom), context.Knowledge, options, context.Display);
+        var factors = HighRiskFactors.Find(request.Facts, HighRiskFactors.LowestOfLowStretch(context.Sodium, episode.Nadir, context.Thresholds.NormalFrom), context.Knowledge, options);
         var highRisk = factors.Count > 0;
         var day = RateWindows.Measure(episode, episode.Latest.EffectiveAt, 24, limits, highRisk, request.Now, options);
         var twoDays = RateWindows.Measure(episode, episode.Latest.EffectiveAt, 48, limits, highRisk, request.Now, options);
@@ -68,92 +68,141 @@ public sealed class CorrectionRateCardProducer : ICardProducer
     {
         var options = context.Options.CorrectionRate;
         var past = worst.Status == RateStatus.AtOrPast;
-        var summary = worst.PassedAt is { } peak
-            ? Summary.Fit(Invariant.Format(
-                $"Sodium reached {Invariant.Number(peak.Value)} from {Invariant.Number(worst.Baseline.Value)} ({RateText.Mmol(peak.Value - worst.Baseline.Value)}): the {Invariant.Number(worst.Limit)} mmol/L limit was passed; now {Invariant.Number(worst.Latest.Value)}."))
-            : Summary.Fit(Invariant.Format(
-                $"Sodium rose {RateText.Mmol(worst.Rise)} in {RateText.Hours(worst.ElapsedHours)} h ({Invariant.Number(worst.Baseline.Value)} → {Invariant.Number(worst.Latest.Value)}): {(past ? "at or past" : "approaching")} the {Invariant.Number(worst.Limit)} mmol/L limit ({worst.LimitLabel})."));
 
-        var findings = new List<string>
+        // A stale latest result calls for a recheck first: at most a warning, never a critical interruption.
+        var stale = context.Sodium.LatestIsStale;
+        Slot[] numbers =
+        [
+            Slot.Number("rise", worst.Rise),
+            RateText.Hours("hours", worst.ElapsedHours),
+            Slot.Number("baseline", worst.Baseline.Value),
+            Slot.Number("latest", worst.Latest.Value),
+            Slot.Number("limit", worst.Limit),
+            Slot.Phrase("label", worst.LimitLabel),
+        ];
+        Finding summary;
+        Finding headline;
+        if (worst.PassedAt is { } peak)
         {
-            "Start (nadir of this episode): " + Cite.Result(episode.Nadir, context.Display),
-            "Latest: " + Cite.Result(episode.Latest, context.Display),
-            Invariant.Format($"Rise since the nadir: {RateText.Mmol(episode.RiseSinceNadir)} in {RateText.Hours(episode.HoursSinceNadir)} h."),
-            Invariant.Format($"Limit reached or approached: {RateText.Mmol(worst.Limit)} ({worst.LimitLabel}, {Markdown.Escape(limits.Name)}); rise in that window {RateText.Mmol(worst.Rise)}; {RateText.Status(worst.Status)}."),
+            Slot[] peakSlots = [.. numbers, Slot.Number("peak", peak.Value), Slot.Number("peakRise", peak.Value - worst.Baseline.Value)];
+            summary = Finding.Of(FindingKind.RateFastSummaryPassed, peakSlots);
+            headline = Finding.Of(FindingKind.RateFastHeadlinePassed, peakSlots);
+        }
+        else
+        {
+            summary = Finding.Of(past ? FindingKind.RateFastSummaryPast : FindingKind.RateFastSummaryApproaching, numbers);
+            headline = Finding.Of(past ? FindingKind.RateFastHeadlinePast : FindingKind.RateFastHeadlineApproaching, numbers);
+        }
+
+        headline = headline.RestingOn(worst.Baseline.Reference, worst.Latest.Reference);
+        var reasons = new List<Finding>
+        {
+            RateText.Cited(FindingKind.RateFastNadir, episode.Nadir).Weighted(Weights.Context),
+            RateText.Cited(FindingKind.RateLatest, episode.Latest).Weighted(Weights.Context),
+            Finding.Of(FindingKind.RateFastRiseSinceNadir, Slot.Number("rise", episode.RiseSinceNadir), RateText.Hours("hours", episode.HoursSinceNadir)).Weighted(Weights.Stated),
+            Finding.Of(
+                FindingKind.RateFastLimit,
+                Slot.Number("limit", worst.Limit),
+                Slot.Phrase("label", worst.LimitLabel),
+                Slot.Text("limits", limits.Name),
+                Slot.Number("rise", worst.Rise),
+                Slot.Phrase("status", RateText.Status(worst.Status))).Weighted(Weights.Stated),
         };
         if (worst.PassedAt is { } passed)
         {
-            findings.Add(Invariant.Format(
-                $"**The limit was passed**: {Cite.Result(passed, context.Display)} is {RateText.Mmol(passed.Value - worst.Baseline.Value)} above {Invariant.Number(worst.Baseline.Value)} mmol/L ({Markdown.Escape(worst.Baseline.Reference)}); sodium has come down since."));
+            reasons.Add(Finding.Of(
+                FindingKind.RateFastPassed,
+                Slot.Result("peak", passed),
+                Slot.Number("peakRise", passed.Value - worst.Baseline.Value),
+                Slot.Number("baseline", worst.Baseline.Value),
+                Slot.Text("baselineRef", worst.Baseline.Reference)).RestingOn(passed.Reference, worst.Baseline.Reference).Weighted(Weights.Culprit));
         }
 
         if (worst.HoursLeft is { } left)
         {
-            findings.Add(left > 0
-                ? Invariant.Format($"Hours left in that window: {RateText.Hours(left)} h (it ends {context.Display.Time(worst.End)}).")
-                : Invariant.Format($"That window ended at {context.Display.Time(worst.End)}."));
+            reasons.Add((left > 0
+                ? Finding.Of(FindingKind.RateFastHoursLeft, RateText.Hours("hours", left), Slot.Time("end", worst.End))
+                : Finding.Of(FindingKind.RateFastWindowEnded, Slot.Time("end", worst.End))).Weighted(Weights.Pace));
         }
 
         if (worst.ProjectedRise is { } projected)
         {
-            findings.Add(Invariant.Format($"If the current rate goes on, the rise would be {RateText.MmolRounded(projected)} by {context.Display.Time(worst.End)}."));
+            reasons.Add(Finding.Of(FindingKind.RateFastProjection, Slot.Rounded("projected", projected, 1), Slot.Time("end", worst.End)).Weighted(Weights.Pace));
         }
 
-        findings.Add(RateText.HighRisk(factors, limits));
-
-        var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Correction-rate watch** as of {context.Display.Time(context.Request.Now)}. Advisory only."))
-            .Bullets("Findings", findings)
-            .Numbered("Computation (with its inputs)", Steps(episode, day, twoDays, options, context.Display))
-            .Bullets("Sodium results in this episode", episode.Results.Select(r => Cite.Result(r, context.Display)))
-            .Bullets("Options clinicians usually discuss (with a senior clinician, under local protocol; not orders)",
-            [
-                "Pausing or stopping therapy that raises sodium (hypertonic or isotonic saline, vasopressin-receptor antagonists, oral salt or urea) and reviewing urine output, since a large dilute urine output can raise sodium quickly.",
-                past
-                    ? "Re-lowering the sodium (for example with electrolyte-free water, with or without desmopressin) is described in local protocols once a limit has been passed; whether to do it is a decision for a senior clinician."
-                    : "Slowing the correction before the limit is reached, as local protocol describes.",
-                "Checking sodium again soon and often while the rise is this fast, at the interval local protocol sets.",
-                "The limits are for chronic hyponatremia (present 48 h or more, or of unknown duration; 2014 European guideline); where it is documented to be acute, the balance of risks differs, and a senior clinician weighs it.",
-            ]);
-        CardFooter.Write(detail, context, RateText.Sources(limits));
-
-        // A stale latest result calls for a recheck first: at most a warning, never a critical interruption.
-        var stale = context.Sodium.LatestIsStale;
+        var cautions = new List<Finding>();
         if (stale)
         {
-            findings.Insert(0, Invariant.Format($"The latest sodium is **stale** (older than {RateText.Hours(context.Sodium.StaleAfterHours)} h): recheck before acting on this rate."));
+            cautions.Add(RateText.Stale(context.Sodium.StaleAfterHours));
         }
+
+        if (RateText.HighRiskCaution(factors, limits) is { } highRisk)
+        {
+            cautions.Add(highRisk);
+        }
+
+        var content = new CardContent
+        {
+            Summary = summary,
+            Headline = headline,
+            Reasons = reasons,
+            Steps = [.. stale ? [RateText.StaleStep(context.Sodium.StaleAfterHours)] : Array.Empty<Finding>(), .. Steps(episode, day, twoDays, options), RateText.HighRisk(factors, limits, options)],
+            NextSteps =
+            [
+                Finding.Of(FindingKind.RateFastNextPause),
+                Finding.Of(FindingKind.RateFastNextPauseWhat),
+                Finding.Of(past ? FindingKind.RateFastNextRelower : FindingKind.RateFastNextSlow),
+                Finding.Of(FindingKind.RateFastNextRecheck),
+                Finding.Of(FindingKind.RateFastNextChronic),
+            ],
+            Cautions = cautions,
+            Sources = RateText.Sources(limits),
+        };
 
         return new Card
         {
-            Summary = summary,
+            Content = content,
             Indicator = past && !stale ? CardIndicator.Critical : CardIndicator.Warning,
-            Detail = detail.ToString(),
             Topic = Topic,
             RuleIds = [RuleId],
             ResourcesUsed = [.. episode.Results.Select(r => r.Reference), .. factors.Select(f => f.Reference).OfType<string>()],
-            Suggestions = [LabOrders.AsSuggestion(LabOrders.SerumSodium("Sodium is rising fast; a recheck shows where the correction stands."), recommended: true)],
+            Suggestions = [LabOrders.AsSuggestion(LabOrders.SerumSodium(PhraseCatalogue.Default.Text(FindingKind.RateFastRecheckReason)), recommended: true)],
             SelectionBehavior = SelectionBehavior.Any,
         };
     }
 
-    private static List<string> Steps(CorrectionEpisode episode, RateWindow day, RateWindow twoDays, CorrectionRateOptions options, TimeDisplay display)
+    private static List<Finding> Steps(CorrectionEpisode episode, RateWindow day, RateWindow twoDays, CorrectionRateOptions options)
     {
-        var steps = new List<string>
+        var steps = new List<Finding>
         {
-            Invariant.Format(
-                $"**Nadir**: the lowest usable sodium in the {RateText.Hours(episode.LookbackHours)} h before the latest result: {Invariant.Number(episode.Nadir.Value)} mmol/L at {display.Time(episode.Nadir.EffectiveAt)} ({Markdown.Escape(episode.Nadir.Reference)}); {episode.Results.Count} result(s) from then on."),
-            Invariant.Format(
-                $"**Rise since the nadir** = {Invariant.Number(episode.Latest.Value)} − {Invariant.Number(episode.Nadir.Value)} = {RateText.Mmol(episode.RiseSinceNadir)} over {RateText.Hours(episode.HoursSinceNadir)} h."),
-            RateText.Window(day, options, display),
-            RateText.Window(twoDays, options, display),
+            Finding.Of(
+                FindingKind.RateFastStepNadir,
+                RateText.Hours("lookback", episode.LookbackHours),
+                Slot.Number("nadir", episode.Nadir.Value),
+                Slot.Time("time", episode.Nadir.EffectiveAt),
+                Slot.Text("ref", episode.Nadir.Reference),
+                Slot.Count("count", episode.Results.Count)).RestingOn(episode.Nadir.Reference),
+            Finding.Of(
+                FindingKind.RateFastStepRise,
+                Slot.Number("latest", episode.Latest.Value),
+                Slot.Number("nadir", episode.Nadir.Value),
+                Slot.Number("rise", episode.RiseSinceNadir),
+                RateText.Hours("hours", episode.HoursSinceNadir)).RestingOn(episode.Nadir.Reference, episode.Latest.Reference),
+            RateText.Window(day, options),
+            RateText.Window(twoDays, options),
         };
         if (episode.SameTimeAsLatest.Count > 0)
         {
-            steps.Add(Invariant.Format(
-                $"{episode.SameTimeAsLatest.Count + 1} results share the latest minute; the highest ({Invariant.Number(episode.Latest.Value)} mmol/L, {Markdown.Escape(episode.Latest.Reference)}) is taken as the latest, the cautious choice for this check. Others: {string.Join(", ", episode.SameTimeAsLatest.Select(r => Invariant.Number(r.Value) + " mmol/L (" + Markdown.Escape(r.Reference) + ")"))}."));
+            steps.Add(Finding.Of(
+                FindingKind.RateFastStepSameTime,
+                Slot.Count("count", episode.SameTimeAsLatest.Count + 1),
+                Slot.Number("latest", episode.Latest.Value),
+                Slot.Text("ref", episode.Latest.Reference),
+                Slot.List("others", episode.SameTimeAsLatest.Select(r => (SlotValue)new PhraseValue(
+                    Finding.Of(FindingKind.RateFastStepSameTimeOther, Slot.Number("value", r.Value), Slot.Text("ref", r.Reference)))))));
         }
 
+        steps.Add(Finding.Of(FindingKind.RateFastStepResults, Slot.List("results", episode.Results.Select(r => (SlotValue)new ResultValue(r)), "; ")));
         return steps;
     }
 
@@ -185,35 +234,49 @@ public sealed class CorrectionRateCardProducer : ICardProducer
             return null;
         }
 
-        var band = context.Thresholds.NameOf(Sodium.SeverityBand.Profound);
-        var changeWord = change > 0 ? "rose" : change < 0 ? "fell" : "did not change";
-        var summary = Summary.Fit(Invariant.Format(
-            $"Sodium still {band} at {Invariant.Number(latest.Value)} mmol/L: {changeWord} {RateText.Mmol(Math.Abs(change))} in {RateText.Hours(hours)} h, below the minimum goal of {Invariant.Number(goal)} mmol/L a day."));
-        var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Correction-rate watch** as of {context.Display.Time(context.Request.Now)}. Advisory only."))
-            .Bullets("Findings",
+        var options = context.Options.CorrectionRate;
+        var band = Slot.Text("band", context.Thresholds.NameOf(Sodium.SeverityBand.Profound));
+        var summaryKind = change > 0 ? FindingKind.RateSlowSummaryRose : change < 0 ? FindingKind.RateSlowSummaryFell : FindingKind.RateSlowSummaryUnchanged;
+        Slot[] numbers =
+        [
+            band,
+            Slot.Number("latest", latest.Value),
+            Slot.Number("earlier", earlier.Value),
+            Slot.Number("change", Math.Abs(change)),
+            RateText.Hours("hours", hours),
+            Slot.Number("goal", goal),
+            Slot.Rounded("perDay", perDay, 1),
+        ];
+        var content = new CardContent
+        {
+            Summary = Finding.Of(summaryKind, numbers),
+            Headline = Finding.Of(FindingKind.RateSlowHeadline, numbers).RestingOn(earlier.Reference, latest.Reference),
+            Reasons =
             [
-                "About a day earlier: " + Cite.Result(earlier, context.Display),
-                "Latest: " + Cite.Result(latest, context.Display),
-                Invariant.Format($"The sodium is still in the {band} band (below {Invariant.Number(context.Thresholds.ModerateFrom)} mmol/L), so a slow or absent rise may leave a dangerous state for longer."),
-                RateText.HighRisk(factors, limits),
-            ])
-            .Numbered("Computation (with its inputs)",
+                RateText.Cited(FindingKind.RateSlowEarlier, earlier).Weighted(Weights.Context),
+                RateText.Cited(FindingKind.RateLatest, latest).Weighted(Weights.Context),
+                Finding.Of(FindingKind.RateSlowBand, band, Slot.Number("moderate", context.Thresholds.ModerateFrom)).Weighted(Weights.Pace),
+            ],
+            Steps =
             [
-                Invariant.Format($"Change = {Invariant.Number(latest.Value)} − {Invariant.Number(earlier.Value)} = {RateText.Mmol(change)} over {RateText.Hours(hours)} h."),
-                Invariant.Format($"Per 24 h = {RateText.Mmol(change)} / {RateText.Hours(hours)} h × 24 = {RateText.MmolRounded(perDay)}; minimum goal {RateText.Mmol(goal)} per day{(highRisk ? " (high risk)" : string.Empty)} ({Markdown.Escape(limits.Name)})."),
-            ])
-            .Bullets("Options clinicians usually discuss (with a senior clinician, under local protocol; not orders)",
-            [
-                "Whether the current treatment matches the cause found by the work-up, and whether symptoms call for faster correction within the limits.",
-                "Checking sodium again at the interval local protocol sets.",
-            ]);
-        CardFooter.Write(detail, context, RateText.Sources(limits));
+                Finding.Of(FindingKind.RateSlowStepChange, Slot.Number("latest", latest.Value), Slot.Number("earlier", earlier.Value), Slot.Number("change", change), RateText.Hours("hours", hours)),
+                Finding.Of(
+                    highRisk ? FindingKind.RateSlowStepPerDayHighRisk : FindingKind.RateSlowStepPerDay,
+                    Slot.Number("change", change),
+                    RateText.Hours("hours", hours),
+                    Slot.Rounded("perDay", perDay, 1),
+                    Slot.Number("goal", goal),
+                    Slot.Text("limits", limits.Name)),
+                RateText.HighRisk(factors, limits, options),
+            ],
+            NextSteps = [Finding.Of(FindingKind.RateSlowNextRecheck), Finding.Of(FindingKind.RateSlowNextTreatment)],
+            Cautions = RateText.HighRiskCaution(factors, limits) is { } caution ? [caution] : [],
+            Sources = RateText.Sources(limits),
+        };
         return new Card
         {
-            Summary = summary,
+            Content = content,
             Indicator = CardIndicator.Info,
-            Detail = detail.ToString(),
             Topic = Topic,
             RuleIds = [RuleId, RuleId + ".slow"],
             ResourcesUsed = [earlier.Reference, latest.Reference],

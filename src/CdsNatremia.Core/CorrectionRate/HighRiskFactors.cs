@@ -1,6 +1,6 @@
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Knowledge;
-using CdsNatremia.Core.Text;
 
 namespace CdsNatremia.Core.CorrectionRate;
 
@@ -11,12 +11,12 @@ namespace CdsNatremia.Core.CorrectionRate;
 /// </summary>
 public static class HighRiskFactors
 {
-    /// <summary>The ValueSets of high-risk conditions, with the word a card uses.</summary>
-    public static IReadOnlyList<(string SetId, string Kind, string Label)> ConditionSets { get; } =
+    /// <summary>The ValueSets of high-risk conditions, with the phrase a card names them by.</summary>
+    public static IReadOnlyList<(string SetId, string Kind, string LabelKind)> ConditionSets { get; } =
     [
-        ("condition-alcohol-use-disorder", "alcohol", "alcohol use disorder"),
-        ("condition-malnutrition", "malnutrition", "malnutrition"),
-        ("condition-cirrhosis", "liver", "advanced liver disease"),
+        ("condition-alcohol-use-disorder", "alcohol", FindingKind.RateFactorAlcohol),
+        ("condition-malnutrition", "malnutrition", FindingKind.RateFactorMalnutrition),
+        ("condition-cirrhosis", "liver", FindingKind.RateFactorLiver),
     ];
 
     /// <summary>
@@ -56,19 +56,19 @@ public static class HighRiskFactors
     /// <param name="nadir">The lowest sodium of the current episode, or null.</param>
     /// <param name="knowledge">The loaded code sets.</param>
     /// <param name="options">Thresholds.</param>
-    /// <param name="display">How times are printed (default UTC).</param>
-    public static IReadOnlyList<HighRiskFactor> Find(PatientFacts facts, LabResult? nadir, KnowledgeBase knowledge, CorrectionRateOptions options, TimeDisplay? display = null)
+    public static IReadOnlyList<HighRiskFactor> Find(PatientFacts facts, LabResult? nadir, KnowledgeBase knowledge, CorrectionRateOptions options)
     {
-        display ??= TimeDisplay.Utc(default);
         Guard.NotNull(facts, nameof(facts));
         Guard.NotNull(knowledge, nameof(knowledge));
         Guard.NotNull(options, nameof(options));
         var found = new List<HighRiskFactor>();
         if (nadir is not null && nadir.Value <= options.HighRiskNadirAtOrBelow)
         {
+            var threshold = Slot.Number("threshold", options.HighRiskNadirAtOrBelow);
             found.Add(new HighRiskFactor(
                 "nadir",
-                Invariant.Format($"lowest sodium {Invariant.Number(nadir.Value)} mmol/L at {display.Time(nadir.EffectiveAt)} ({Markdown.Escape(nadir.Reference)}) is at or below {Invariant.Number(options.HighRiskNadirAtOrBelow)} mmol/L"),
+                Finding.Of(FindingKind.RateFactorNadir, Slot.Number("sodium", nadir.Value), Slot.Time("time", nadir.EffectiveAt), Slot.Text("ref", nadir.Reference), threshold).RestingOn(nadir.Reference),
+                Finding.Of(FindingKind.RateFactorNadirName, threshold),
                 nadir.Reference));
         }
 
@@ -81,19 +81,20 @@ public static class HighRiskFactors
         foreach (var potassium in potassiumResults)
         {
             var (below, basis) = potassium.ReferenceLow is { } low
-                ? (low, "the laboratory's lower reference limit")
-                : (options.LowPotassiumBelow, "the configured lower limit");
+                ? (low, FindingKind.RateFactorPotassiumLaboratory)
+                : (options.LowPotassiumBelow, FindingKind.RateFactorPotassiumConfigured);
             if (potassium.Value < below)
             {
                 found.Add(new HighRiskFactor(
                     "potassium",
-                    Invariant.Format($"low potassium: {Invariant.Number(potassium.Value)} mmol/L at {display.Time(potassium.EffectiveAt)} ({Markdown.Escape(potassium.Reference)}), below {basis} of {Invariant.Number(below)} mmol/L"),
+                    Finding.Of(basis, Slot.Number("potassium", potassium.Value), Slot.Time("time", potassium.EffectiveAt), Slot.Text("ref", potassium.Reference), Slot.Number("below", below)).RestingOn(potassium.Reference),
+                    Finding.Of(FindingKind.RateFactorPotassiumName),
                     potassium.Reference));
                 break;
             }
         }
 
-        foreach (var (setId, kind, label) in ConditionSets)
+        foreach (var (setId, kind, labelKind) in ConditionSets)
         {
             if (knowledge.Find(setId) is not { } set)
             {
@@ -105,8 +106,11 @@ public static class HighRiskFactors
                 .FirstOrDefault(c => c.Codes.Any(set.Matches) || set.MatchName(c.Text) is not null);
             if (condition is not null)
             {
-                var text = string.IsNullOrWhiteSpace(condition.Text) ? string.Empty : ": " + Markdown.Escape(condition.Text);
-                found.Add(new HighRiskFactor(kind, $"{label}{text} ({Markdown.Escape(condition.Reference)})", condition.Reference));
+                var label = Finding.Of(labelKind);
+                var description = string.IsNullOrWhiteSpace(condition.Text)
+                    ? Finding.Of(FindingKind.RateFactorConditionUntitled, Slot.Phrase("label", label), Slot.Text("ref", condition.Reference))
+                    : Finding.Of(FindingKind.RateFactorCondition, Slot.Phrase("label", label), Slot.Text("text", condition.Text), Slot.Text("ref", condition.Reference));
+                found.Add(new HighRiskFactor(kind, description.RestingOn(condition.Reference), label, condition.Reference));
             }
         }
 

@@ -1,7 +1,7 @@
-using CdsNatremia.Core.Text;
 using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Workup;
 
 namespace CdsNatremia.Core.CorrectionRate;
@@ -38,7 +38,7 @@ public sealed class HighRiskRule : IAssessmentRule
         }
 
         var lowest = HighRiskFactors.LowestOfLowStretch(context.Sodium, episode.Nadir, context.Thresholds.NormalFrom);
-        var factors = HighRiskFactors.Find(context.Request.Facts, lowest, context.Knowledge, options, context.Display);
+        var factors = HighRiskFactors.Find(context.Request.Facts, lowest, context.Knowledge, options);
         if (factors.Count == 0)
         {
             return;
@@ -57,14 +57,22 @@ public sealed class HighRiskRule : IAssessmentRule
             card.Sources.Add(source);
         }
 
-        var found = string.Join("; ", factors.Select(f => f.Description));
-        var day = Invariant.Number(limits.HighRiskDay);
-        card.Findings.Add(Invariant.Format(
-            $"**This patient is at high risk of osmotic demyelination** (US expert panel, Verbalis et al. 2013): {found}. The stricter limit applies: a rise of **no more than {day} mmol/L in any 24 h**."));
-        card.Steps.Add(Invariant.Format(
-            $"**Risk of osmotic demyelination**: checked sodium ≤ {Invariant.Number(options.HighRiskNadirAtOrBelow)} mmol/L in this low stretch, low potassium, alcohol use disorder, malnutrition and advanced liver disease; found {factors.Count}: {found}. Limit: {day} mmol/L in any 24 h and {Invariant.Number(limits.HighRiskTwoDays)} mmol/L in 48 h (the 48-h figure derived from the 24-h limit), in place of the usual {Invariant.Number(limits.FirstDay)} mmol/L in the first 24 h ({Text.Markdown.Escape(limits.Name)})."));
-        card.NextSteps.Add(Invariant.Format(
-            $"Plan a slow correction: no more than {day} mmol/L in any 24 h; replacing potassium also raises sodium (common practice), and a water diuresis once the cause is removed can raise it quickly, so check sodium often."));
-        card.OfferSummaryAction(SummaryPriority, Invariant.Format($"high risk of osmotic demyelination: rise ≤ {day} mmol/L in any 24 h"));
+        var day = Slot.Number("day", limits.HighRiskDay);
+        var evidence = factors.Select(f => f.Reference).OfType<string>().ToArray();
+
+        // A patient-specific caution: short on the card; the full statement and the check itself in the reasoning.
+        card.Cautions.Add(RateText.HighRiskCaution(factors, limits)!);
+        card.Steps.Add(Finding.Of(FindingKind.RateHighRiskStatement, RateText.Factors(factors), day).RestingOn(evidence));
+        card.Steps.Add(Finding.Of(
+            FindingKind.RateHighRiskStep,
+            Slot.Number("nadir", options.HighRiskNadirAtOrBelow),
+            Slot.Count("count", factors.Count),
+            RateText.Factors(factors),
+            day,
+            Slot.Number("twoDays", limits.HighRiskTwoDays),
+            Slot.Number("firstDay", limits.FirstDay),
+            Slot.Text("limits", limits.Name)).RestingOn(evidence));
+        card.NextSteps.Add(Finding.Of(FindingKind.RateHighRiskNext, day));
+        card.OfferSummaryAction(SummaryPriority, Finding.Of(FindingKind.RateHighRiskAction, day));
     }
 }

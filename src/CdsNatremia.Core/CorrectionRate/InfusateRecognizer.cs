@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text.RegularExpressions;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Knowledge;
 
 namespace CdsNatremia.Core.CorrectionRate;
@@ -44,20 +45,20 @@ public static partial class InfusateRecognizer
         var routeStated = !string.IsNullOrWhiteSpace(order.Route);
         if (ringers)
         {
-            return new(Infusate.Of(InfusateKind.RingersLactate, options), "name in the order text", routeStated);
+            return new(Infusate.Of(InfusateKind.RingersLactate, options), ByName, routeStated);
         }
 
         if (order.ProductCodes.Concat(order.Ingredients.SelectMany(i => i.Codes))
             .Any(c => c.System == CodeSystems.RxNorm && c.Code == RxNormSaline09))
         {
-            return new(Infusate.Of(InfusateKind.Saline09, options), "RxNorm " + RxNormSaline09, routeStated);
+            return new(Infusate.Of(InfusateKind.Saline09, options), Finding.Of(FindingKind.RateHowRxnorm, Slot.Text("code", RxNormSaline09)), routeStated);
         }
 
         foreach (var ingredient in order.Ingredients)
         {
             if (Percent(FromStrength(ingredient.StrengthText)) is { } kind)
             {
-                return new(Infusate.Of(kind, options), "ingredient strength " + ingredient.StrengthText, routeStated);
+                return new(Infusate.Of(kind, options), Finding.Of(FindingKind.RateHowStrength, Slot.Text("strength", ingredient.StrengthText ?? string.Empty)), routeStated);
             }
         }
 
@@ -65,22 +66,25 @@ public static partial class InfusateRecognizer
         {
             if (Percent(FromText(text)) is { } kind)
             {
-                return new(Infusate.Of(kind, options), "concentration in the order text", routeStated);
+                return new(Infusate.Of(kind, options), Finding.Of(FindingKind.RateHowConcentration), routeStated);
             }
 
             if (HalfNormal().IsMatch(text))
             {
-                return new(Infusate.Of(InfusateKind.Saline045, options), "name in the order text", routeStated);
+                return new(Infusate.Of(InfusateKind.Saline045, options), ByName, routeStated);
             }
 
             if (NormalSaline().IsMatch(text))
             {
-                return new(Infusate.Of(InfusateKind.Saline09, options), "name in the order text", routeStated);
+                return new(Infusate.Of(InfusateKind.Saline09, options), ByName, routeStated);
             }
         }
 
-        return new(null, setMatch?.By ?? "name in the order text", routeStated);
+        return new(null, setMatch is null ? ByName : Finding.Of(FindingKind.RateHowMatched, Slot.Text("by", setMatch.By)), routeStated);
     }
+
+    /// <summary>Recognised by a name in the order text.</summary>
+    private static Finding ByName => Finding.Of(FindingKind.RateHowName);
 
     /// <summary>Grams of sodium chloride per 100 mL (per cent w/v) from a strength such as "30 mg/1 mL" or "3 g/100 mL".</summary>
     public static double? FromStrength(string? strength)

@@ -2,7 +2,7 @@ using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
-using CdsNatremia.Core.Text;
+using CdsNatremia.Core.Findings;
 
 namespace CdsNatremia.Core.CorrectionRate;
 
@@ -53,145 +53,123 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
 
     private Card Build(DecisionContext context, List<(MedicationFact Order, InfusateRecognition Recognition)> orders, Allowance? allowance)
     {
+        var prediction = Decide(context, orders, allowance);
+        return new Card
+        {
+            Content = Content(prediction, context),
+            Indicator = prediction.Indicator,
+            Topic = Topic,
+            RuleIds = [RuleId],
+            ResourcesUsed = prediction.Used,
+        };
+    }
+
+    /// <summary>What the prediction says about the orders before any wording: the numbers, the verdict and the indicator.</summary>
+    private static Prediction Decide(DecisionContext context, List<(MedicationFact Order, InfusateRecognition Recognition)> orders, Allowance? allowance)
+    {
         var facts = context.Request.Facts;
         var options = context.Options.Infusion;
-        var rateOptions = context.Options.CorrectionRate;
         var weight = facts.Latest(Analyte.BodyWeight);
-        string? weightProblem = null;
+        LabResult? implausible = null;
         if (weight is not null && !(weight.Value >= MinimumPlausibleWeightKg && weight.Value <= MaximumPlausibleWeightKg))
         {
-            weightProblem = Invariant.Format(
-                $"The latest weight, {Invariant.Number(weight.Value)} kg ({Markdown.Escape(weight.Reference)}), is outside {Invariant.Number(MinimumPlausibleWeightKg)}–{Invariant.Number(MaximumPlausibleWeightKg)} kg and was not used.");
+            implausible = weight;
             weight = null;
         }
 
         var age = facts.AgeAt(context.Request.Now);
         var serum = allowance?.Episode.Latest;
-
-        var steps = new List<string>();
-        var findings = new List<string>();
+        var water = weight is null ? null : BodyWater.Estimate(weight.Value, facts.Sex, age, options);
         var used = new List<string>();
-        BodyWater? water = null;
         if (weight is not null)
         {
-            water = BodyWater.Estimate(weight.Value, facts.Sex, age, options);
             used.Add(weight.Reference);
-            steps.Add(Invariant.Format(
-                $"**Total body water** = weight {Invariant.Number(weight.Value)} kg ({Markdown.Escape(weight.Reference)}, {context.Display.Time(weight.EffectiveAt)}) × {Invariant.Number(water.Fraction)} ({water.Why}) = **{Invariant.Number(water.Litres)} L**."));
-        }
-        else
-        {
-            findings.Add("**No usable body weight** was found, so the effect of the ordered volume on this patient is not predicted. Record a weight to get it.");
-            if (weightProblem is not null)
-            {
-                findings.Add(weightProblem);
-            }
         }
 
         if (serum is not null)
         {
             used.Add(serum.Reference);
-            findings.Add("Serum sodium used: " + Cite.Result(serum, context.Display));
-            if (context.Sodium.LatestIsStale)
-            {
-                findings.Add(Invariant.Format(
-                    $"This sodium is {RateText.Hours(context.Sodium.LatestAgeHours ?? 0)} h old (older than {RateText.Hours(context.Sodium.StaleAfterHours)} h): the prediction starts from it, so a fresh sodium gives a truer figure."));
-            }
-        }
-        else
-        {
-            findings.Add("**No usable sodium result** was found, so no prediction is made.");
         }
 
-        double total = 0;
-        var predictedAny = false;
-        var unknownVolume = false;
+        var predictions = new List<OrderPrediction>();
         foreach (var (order, recognition) in orders)
         {
             used.Add(order.Reference);
-            var name = Markdown.Escape(order.Text ?? order.Ingredients.Select(i => i.Text).FirstOrDefault(t => t is not null) ?? order.Reference);
-            var route = recognition.RouteStated ? Markdown.Escape(order.Route) : "route not stated (intravenous assumed)";
             var millilitres = order.VolumeMilliliters is { } v && v > 0 && double.IsFinite(v) ? v : (double?)null;
-            var volume = millilitres is { } ml ? Invariant.Format($"{Invariant.Number(ml)} mL")
-                : order.VolumeMilliliters is { } bad ? Invariant.Format($"volume {Invariant.Number(bad)} mL not usable") : "volume not stated";
-            if (recognition.Infusate is not { } infusate)
+            var prediction = new OrderPrediction(order, recognition, millilitres);
+            if (recognition.Infusate is { } infusate && serum is not null)
             {
-                steps.Add($"**{name}** ({Markdown.Escape(order.Reference)}; {route}; {volume}): recognised as an intravenous sodium chloride fluid ({Markdown.Escape(recognition.How)}) but its concentration could not be read, so no prediction is made for it.");
-                continue;
+                if (water is null)
+                {
+                    var example = BodyWater.Estimate(options.ExampleWeightKg, facts.Sex, age, options);
+                    prediction = prediction with { Example = example, PerLitre = AdrogueMadias.ChangePerLitre(infusate.Sodium, infusate.Potassium, serum.Value, example.Litres) };
+                }
+                else
+                {
+                    var perLitre = AdrogueMadias.ChangePerLitre(infusate.Sodium, infusate.Potassium, serum.Value, water.Litres);
+                    prediction = prediction with
+                    {
+                        PerLitre = perLitre,
+                        Change = millilitres is { } ordered ? AdrogueMadias.ChangeForVolume(perLitre, ordered) : null,
+                    };
+                }
             }
 
-            var head = Invariant.Format($"**{name}** ({Markdown.Escape(order.Reference)}; {route}; {volume}) read as {infusate.Name} ({Markdown.Escape(recognition.How)}): infusate sodium {Invariant.Number(infusate.Sodium)} + potassium {Invariant.Number(infusate.Potassium)} mmol/L");
-            if (serum is null)
-            {
-                steps.Add(head + "; no prediction without a usable sodium.");
-                continue;
-            }
-
-            if (water is null)
-            {
-                var example = BodyWater.Estimate(options.ExampleWeightKg, facts.Sex, age, options);
-                var examplePerLitre = AdrogueMadias.ChangePerLitre(infusate.Sodium, infusate.Potassium, serum.Value, example.Litres);
-                steps.Add(head + Invariant.Format(
-                    $". *Example only, not this patient's weight*: for an example weight of {Invariant.Number(options.ExampleWeightKg)} kg (water {Invariant.Number(example.Fraction)} × {Invariant.Number(options.ExampleWeightKg)} = {Invariant.Number(example.Litres)} L), one litre would change sodium by ({Invariant.Number(infusate.Sodium)} + {Invariant.Number(infusate.Potassium)} − {Invariant.Number(serum.Value)}) / ({Invariant.Number(example.Litres)} + 1) = {Signed(examplePerLitre)} mmol/L. A lighter patient would change more."));
-                continue;
-            }
-
-            var perLitre = AdrogueMadias.ChangePerLitre(infusate.Sodium, infusate.Potassium, serum.Value, water.Litres);
-            var text = head + Invariant.Format(
-                $". **Per litre** = ({Invariant.Number(infusate.Sodium)} + {Invariant.Number(infusate.Potassium)} − {Invariant.Number(serum.Value)}) / ({Invariant.Number(water.Litres)} + 1) = **{Signed(perLitre)} mmol/L**");
-            if (millilitres is { } ordered)
-            {
-                var change = AdrogueMadias.ChangeForVolume(perLitre, ordered);
-                total += change;
-                predictedAny = true;
-                text += Invariant.Format($"; **for {Invariant.Number(ordered)} mL** = {Signed(perLitre)} × {Invariant.Number(ordered)} / 1000 = **{Signed(change)} mmol/L**");
-            }
-            else
-            {
-                unknownVolume = true;
-                text += "; the order states no usable volume, so only the per-litre figure is given";
-            }
-
-            steps.Add(text + ".");
+            predictions.Add(prediction);
         }
 
-        var mayFall = CompareUrine(context, orders, serum, findings, used);
+        var total = predictions.Sum(p => p.Change ?? 0);
+        var predictedAny = predictions.Any(p => p.Change is not null);
+        var unknownVolume = predictions.Any(p => p.PerLitre is not null && p.Example is null && p.Change is null);
+
+        // Urine against each fluid (desalination): when the urine is more concentrated, the predicted rise does not hold.
+        var urine = UrineVersusInfusate.Find(context, serum?.EffectiveAt ?? context.Request.Now);
+        var comparisons = new List<UrineComparison>();
+        if (urine.HasData)
+        {
+            used.AddRange(new[] { urine.Osmolality, urine.Sodium, urine.Potassium }.OfType<LabResult>().Select(r => r.Reference));
+            foreach (var infusate in orders.Select(o => o.Recognition.Infusate).OfType<Infusate>().DistinctBy(i => i.Kind))
+            {
+                var (fall, lines) = urine.Compare(infusate);
+                comparisons.Add(new UrineComparison(infusate, fall, lines));
+            }
+        }
+
+        var mayFall = comparisons.Any(c => c.MayFall);
         var indicator = CardIndicator.Info;
-        string verdict;
+        Verdict verdict;
+        var remaining = allowance is null ? 0 : Math.Max(0, allowance.Remaining);
         if (allowance is not null && predictedAny)
         {
-            var remaining = Math.Max(0, allowance.Remaining);
-            findings.Add(Invariant.Format(
-                $"Predicted change from {(orders.Count > 1 ? "these orders together" : "this order")}: **{Signed(total)} mmol/L**; allowance left now: **{RateText.Mmol(remaining)}** ({allowance.Binding.LimitLabel})."));
             if (allowance.Binding.Status == RateStatus.AtOrPast)
             {
                 indicator = CardIndicator.Critical;
-                verdict = "limit already reached";
+                verdict = Verdict.LimitReached;
             }
             else if (total > remaining)
             {
                 indicator = CardIndicator.Critical;
-                verdict = Invariant.Format($"would exceed the {RateText.Mmol(remaining)} left");
+                verdict = Verdict.WouldExceed;
             }
             else if (total < 0)
             {
                 // A fluid whose sodium plus potassium is below the serum sodium lowers sodium further (Adrogué–Madias numerator).
                 indicator = CardIndicator.Warning;
-                verdict = Invariant.Format($"predicted to lower sodium further ({Signed(total)} mmol/L)");
+                verdict = Verdict.Lowers;
             }
             else if (total > 0 && total >= remaining - options.ApproachingWithinMmolPerL)
             {
                 indicator = CardIndicator.Warning;
-                verdict = Invariant.Format($"close to the {RateText.Mmol(remaining)} left");
+                verdict = Verdict.Close;
             }
             else
             {
-                verdict = Invariant.Format($"within the {RateText.Mmol(remaining)} left");
+                verdict = Verdict.Within;
             }
         }
         else
         {
-            verdict = weight is null ? "no weight, no prediction for the volume" : unknownVolume ? "per litre only" : "no prediction";
+            verdict = weight is null ? Verdict.NoWeight : unknownVolume ? Verdict.PerLitreOnly : Verdict.NoPrediction;
         }
 
         if (indicator == CardIndicator.Info
@@ -200,91 +178,254 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
             indicator = CardIndicator.Warning;
         }
 
+        var stale = serum is not null && context.Sodium.LatestIsStale;
         if (indicator == CardIndicator.Critical && context.Sodium.LatestIsStale)
         {
-            // A stale sodium calls for a recheck first: at most a warning, never a critical interruption (the stale note is in the findings).
+            // A stale sodium calls for a recheck first: at most a warning, never a critical interruption (the stale caution is on the card).
             indicator = CardIndicator.Warning;
         }
 
-        if (mayFall && indicator != CardIndicator.Critical)
+        // Desalination (Steele et al. 1997): the prediction's sign cannot be trusted, so its verdict is not given.
+        var mayFallShown = mayFall && indicator != CardIndicator.Critical;
+        if (mayFallShown)
         {
-            // Desalination (Steele et al. 1997): the prediction's sign cannot be trusted, so its verdict is not given.
             indicator = CardIndicator.Warning;
-            verdict = "urine more concentrated than the fluid: sodium may fall";
         }
 
-        var first = orders[0].Recognition.Infusate?.Name ?? "sodium chloride";
-        var summary = Summary.Fit(mayFall && indicator != CardIndicator.Critical
-            ? predictedAny
-                ? Invariant.Format($"{Capital(first)} order: urine more concentrated than the fluid, so sodium may fall; the predicted {Signed(total)} mmol/L does not hold.")
-                : Invariant.Format($"{Capital(first)} order: urine more concentrated than the fluid, so sodium may fall (see detail).")
-            : predictedAny
-                ? Invariant.Format($"{Capital(first)} order: predicted sodium change {Signed(total)} mmol/L; {verdict}.")
-                : Invariant.Format($"{Capital(first)} order: {verdict} (see detail)."));
-
-        var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Infusion effect prediction** as of {context.Display.Time(context.Request.Now)} (Adrogué–Madias formula). Advisory only."))
-            .Bullets("Findings", findings)
-            .Numbered("Computation (with its inputs)", steps)
-            .Bullets("Where the correction stands (limits)", allowance?.Describe(rateOptions, context.Display) ?? [])
-            .Bullets("Points clinicians usually weigh (under local protocol; not orders)",
-            [
-                "The formula assumes no other gain or loss of water or salt: urine output, especially a large dilute urine output once the cause is removed, can make the real rise larger than predicted.",
-                "Checking sodium after the infusion, or during it for hypertonic saline, at the interval local protocol sets.",
-                "Whether the ordered volume and rate fit the correction limits; discuss with a senior clinician when the prediction is near or above the allowance.",
-            ]);
-        CardFooter.Write(detail, context,
-        [
-            "Adrogué–Madias formula (Adrogué & Madias, N Engl J Med 2000;342:1581); total body water fractions and infusate sodium as on the project reference sheet (secondary sources).",
-            "Sodium falling on near-isotonic saline when the urine is more concentrated than the fluid (desalination): " + UrineVersusInfusate.Source + ".",
-            .. allowance is null ? [] : RateText.Sources(allowance.Limits),
-        ]);
-
-        return new Card
+        return new Prediction(weight, implausible, water, serum, stale, predictions, total, predictedAny, comparisons, urine.HasData, mayFallShown, verdict, remaining, indicator, allowance)
         {
-            Summary = summary,
-            Indicator = indicator,
-            Detail = detail.ToString(),
-            Topic = Topic,
-            RuleIds = [RuleId],
-            ResourcesUsed = used.Distinct(StringComparer.Ordinal).ToList(),
+            Used = used.Distinct(StringComparer.Ordinal).ToList(),
         };
     }
 
-    /// <summary>
-    /// Compares the urine with each ordered fluid (<see cref="UrineVersusInfusate"/>) and adds what it found; true when for
-    /// some fluid the urine is more concentrated, so the predicted rise does not hold and sodium may fall. Without urine data
-    /// the card says that the prediction assumes no urine losses.
-    /// </summary>
-    private static bool CompareUrine(DecisionContext context, List<(MedicationFact Order, InfusateRecognition Recognition)> orders, LabResult? serum, List<string> findings, List<string> used)
+    /// <summary>The findings of a prediction (the numbers as slots); the engine words them.</summary>
+    private static CardContent Content(Prediction p, DecisionContext context)
     {
-        var urine = UrineVersusInfusate.Find(context, serum?.EffectiveAt ?? context.Request.Now);
-        if (!urine.HasData)
+        var options = context.Options.Infusion;
+        var reasons = new List<Finding>();
+        var steps = new List<Finding>();
+        var cautions = new List<Finding>();
+        if (p.Water is { } water)
         {
-            findings.Add("**The prediction assumes no urine losses.** No recent urine osmolality or urine sodium was found to check it: if the urine is more concentrated than the fluid (urine osmolality above the fluid's, or urine sodium + potassium above the fluid's sodium + potassium), sodium can fall instead of rising (desalination, Steele et al. 1997). Urine osmolality, sodium and potassium settle it.");
-            return false;
+            var weight = p.Weight!;
+            steps.Add(Finding.Of(
+                FindingKind.RateInfusionStepWater,
+                Slot.Number("weight", weight.Value),
+                Slot.Text("ref", weight.Reference),
+                Slot.Time("time", weight.EffectiveAt),
+                Slot.Number("fraction", water.Fraction),
+                Slot.Phrase("why", water.Why),
+                Slot.Number("litres", water.Litres)).RestingOn(weight.Reference));
+        }
+        else
+        {
+            reasons.Add(Finding.Of(FindingKind.RateInfusionNoWeight).Weighted(Weights.DataGap));
+            if (p.ImplausibleWeight is { } bad)
+            {
+                reasons.Add(Finding.Of(
+                    FindingKind.RateInfusionWeightImplausible,
+                    Slot.Number("weight", bad.Value),
+                    Slot.Text("ref", bad.Reference),
+                    Slot.Number("min", MinimumPlausibleWeightKg),
+                    Slot.Number("max", MaximumPlausibleWeightKg)).RestingOn(bad.Reference).Weighted(Weights.DataGap));
+            }
         }
 
-        used.AddRange(new[] { urine.Osmolality, urine.Sodium, urine.Potassium }.OfType<LabResult>().Select(r => r.Reference));
-        var mayFall = false;
-        foreach (var infusate in orders.Select(o => o.Recognition.Infusate).OfType<Infusate>().DistinctBy(i => i.Kind))
+        if (p.Serum is { } serum)
         {
-            var (fall, lines) = urine.Compare(infusate, context.Display);
-            mayFall |= fall;
-            var compared = string.Join("; ", lines);
-            findings.Add(fall
-                ? Invariant.Format($"**The prediction does not hold for {infusate.Name}: sodium may fall.** The urine is more concentrated than the fluid: {compared}. The kidney excretes the fluid's salt in less water than came with it and keeps the rest as free water (desalination, Steele et al. 1997).")
-                : Invariant.Format($"Urine compared with {infusate.Name}: {compared}. The urine is not more concentrated than the fluid, so the predicted direction holds; urine losses still change the size of the change."));
+            reasons.Add(RateText.Cited(FindingKind.RateInfusionSerum, serum).Weighted(Weights.Context));
+            if (p.Stale)
+            {
+                Slot[] ages = [RateText.Hours("age", context.Sodium.LatestAgeHours ?? 0), RateText.Hours("stale", context.Sodium.StaleAfterHours)];
+                cautions.Add(Finding.Of(FindingKind.RateInfusionSerumStale, ages).RestingOn(serum.Reference));
+                steps.Add(Finding.Of(FindingKind.RateInfusionSerumStaleStep, ages).RestingOn(serum.Reference));
+            }
+        }
+        else
+        {
+            reasons.Add(Finding.Of(FindingKind.RateInfusionNoSerum).Weighted(Weights.DataGap));
         }
 
-        return mayFall;
+        steps.AddRange(p.Orders.Select(o => OrderStep(o, p, options)));
+
+        if (p.Allowance is { } allowance && p.PredictedAny)
+        {
+            reasons.Add(Finding.Of(
+                p.Orders.Count > 1 ? FindingKind.RateInfusionPredictedMany : FindingKind.RateInfusionPredictedOne,
+                RateText.Signed("change", p.Total),
+                Slot.Number("remaining", p.Remaining),
+                Slot.Phrase("label", allowance.Binding.LimitLabel)).Weighted(Weights.Culprit));
+        }
+
+        if (!p.UrineChecked)
+        {
+            reasons.Add(Finding.Of(FindingKind.RateInfusionUrineNone).Weighted(Weights.Missing));
+        }
+
+        foreach (var comparison in p.Urine)
+        {
+            var compared = Slot.List("compared", comparison.Lines.Select(l => (SlotValue)new PhraseValue(l)), "; ");
+            var name = Slot.Phrase("fluid", comparison.Infusate.Name);
+            if (comparison.MayFall)
+            {
+                reasons.Add(Finding.Of(FindingKind.RateInfusionUrineMayFall, name, compared).Weighted(Weights.Urgent));
+                steps.Add(Finding.Of(FindingKind.RateInfusionUrineMayFallWhy, name));
+            }
+            else
+            {
+                reasons.Add(Finding.Of(FindingKind.RateInfusionUrineHolds, name, compared).Weighted(Weights.Cause));
+            }
+        }
+
+        if (p.Allowance is { } a)
+        {
+            steps.AddRange(a.Describe(context.Options.CorrectionRate));
+            if (RateText.HighRiskCaution(a.Factors, a.Limits) is { } highRisk)
+            {
+                cautions.Add(highRisk);
+            }
+        }
+
+        var fluid = Slot.Phrase("fluid", p.Orders[0].Recognition.Infusate?.NameAtStart ?? Finding.Of(FindingKind.RateInfusateUnreadStart));
+        var change = RateText.Signed("change", p.Total);
+        var verdict = Slot.Phrase("verdict", VerdictOf(p));
+        var (summary, headline) = p.MayFall
+            ? (Finding.Of(p.PredictedAny ? FindingKind.RateInfusionSummaryMayFallPredicted : FindingKind.RateInfusionSummaryMayFall, fluid, change),
+               Finding.Of(FindingKind.RateInfusionHeadlineMayFall, fluid))
+            : p.PredictedAny
+                ? (Finding.Of(FindingKind.RateInfusionSummaryPredicted, fluid, change, verdict), Finding.Of(FindingKind.RateInfusionHeadlinePredicted, fluid, change, verdict))
+                : (Finding.Of(FindingKind.RateInfusionSummaryUnpredicted, fluid, verdict), Finding.Of(FindingKind.RateInfusionHeadlineUnpredicted, fluid, verdict));
+
+        var next = new List<Finding>();
+        if (p.Water is null)
+        {
+            next.Add(Finding.Of(FindingKind.RateInfusionNextWeight));
+        }
+
+        // Near or above the allowance, the fit with the limits comes first; otherwise the recheck.
+        var fit = Finding.Of(FindingKind.RateInfusionNextFit);
+        var recheck = Finding.Of(FindingKind.RateInfusionNextRecheck);
+        next.AddRange(p.Verdict is Verdict.LimitReached or Verdict.WouldExceed or Verdict.Close ? [fit, recheck] : [recheck, fit]);
+        next.Add(Finding.Of(FindingKind.RateInfusionNextUrine));
+
+        return new CardContent
+        {
+            Summary = summary,
+            Headline = headline.RestingOn([.. p.Orders.Select(o => o.Order.Reference)]),
+            Reasons = reasons,
+            Steps = steps,
+            NextSteps = next,
+            Cautions = cautions,
+            Sources =
+            [
+                AdrogueMadiasSource,
+                DesalinationSource + UrineVersusInfusate.Source + ".",
+                .. p.Allowance is null ? [] : RateText.Sources(p.Allowance.Limits),
+            ],
+        };
     }
 
-    private static string Signed(double value)
+    /// <summary>The Adrogué–Madias citation (source data).</summary>
+    private const string AdrogueMadiasSource = "Adrogué–Madias formula (Adrogué & Madias, N Engl J Med 2000;342:1581); total body water fractions and infusate sodium as on the project reference sheet (secondary sources).";
+
+    /// <summary>The desalination citation's lead (source data).</summary>
+    private const string DesalinationSource = "Sodium falling on near-isotonic saline when the urine is more concentrated than the fluid (desalination): ";
+
+    private static Finding VerdictOf(Prediction p) => p.Verdict switch
     {
-        var rounded = Math.Round(value, 1);
-        return rounded > 0 ? "+" + Invariant.Number(rounded) : Invariant.Number(rounded);
+        Verdict.LimitReached => Finding.Of(FindingKind.RateInfusionVerdictLimitReached),
+        Verdict.WouldExceed => Finding.Of(FindingKind.RateInfusionVerdictExceed, Slot.Number("remaining", p.Remaining)),
+        Verdict.Lowers => Finding.Of(FindingKind.RateInfusionVerdictLowers, RateText.Signed("change", p.Total)),
+        Verdict.Close => Finding.Of(FindingKind.RateInfusionVerdictClose, Slot.Number("remaining", p.Remaining)),
+        Verdict.Within => Finding.Of(FindingKind.RateInfusionVerdictWithin, Slot.Number("remaining", p.Remaining)),
+        Verdict.NoWeight => Finding.Of(FindingKind.RateInfusionVerdictNoWeight),
+        Verdict.PerLitreOnly => Finding.Of(FindingKind.RateInfusionVerdictPerLitre),
+        _ => Finding.Of(FindingKind.RateInfusionVerdictNone),
+    };
+
+    /// <summary>One order's computation step, with its inputs.</summary>
+    private static Finding OrderStep(OrderPrediction o, Prediction p, InfusionOptions options)
+    {
+        var order = o.Order;
+        var name = Slot.Text("name", order.Text ?? order.Ingredients.Select(i => i.Text).FirstOrDefault(t => t is not null) ?? order.Reference);
+        var route = o.Recognition.RouteStated ? Slot.Text("route", order.Route ?? string.Empty) : Slot.Phrase("route", Finding.Of(FindingKind.RateInfusionRouteNotStated));
+        var volume = Slot.Phrase("volume", o.Millilitres is { } ml ? Finding.Of(FindingKind.RateInfusionVolume, Slot.Number("ml", ml))
+            : order.VolumeMilliliters is { } bad ? Finding.Of(FindingKind.RateInfusionVolumeUnusable, Slot.Number("ml", bad))
+            : Finding.Of(FindingKind.RateInfusionVolumeNone));
+        var reference = Slot.Text("ref", order.Reference);
+        if (o.Recognition.Infusate is not { } infusate)
+        {
+            return Finding.Of(FindingKind.RateInfusionStepUnread, name, reference, route, volume, Slot.Phrase("how", o.Recognition.How)).RestingOn(order.Reference);
+        }
+
+        Slot[] content = [Slot.Number("sodium", infusate.Sodium), Slot.Number("potassium", infusate.Potassium)];
+        Finding tail;
+        if (p.Serum is not { } serum || o.PerLitre is not { } perLitre)
+        {
+            tail = Finding.Of(FindingKind.RateInfusionPredictionNoSerum);
+        }
+        else if (o.Example is { } example)
+        {
+            tail = Finding.Of(
+                FindingKind.RateInfusionPredictionExample,
+                [.. content, Slot.Number("weight", options.ExampleWeightKg), Slot.Number("fraction", example.Fraction), Slot.Number("litres", example.Litres), Slot.Number("serum", serum.Value), RateText.Signed("perLitre", perLitre)]);
+        }
+        else
+        {
+            Slot[] formula = [.. content, Slot.Number("serum", serum.Value), Slot.Number("litres", p.Water!.Litres), RateText.Signed("perLitre", perLitre)];
+            tail = o.Change is { } change && o.Millilitres is { } ordered
+                ? Finding.Of(FindingKind.RateInfusionPredictionVolume, [.. formula, Slot.Number("ml", ordered), RateText.Signed("change", change)])
+                : Finding.Of(FindingKind.RateInfusionPredictionPerLitre, formula);
+        }
+
+        return Finding.Of(
+            FindingKind.RateInfusionStepOrder,
+            [name, reference, route, volume, Slot.Phrase("fluid", infusate.Name), Slot.Phrase("how", o.Recognition.How), .. content, Slot.Phrase("prediction", tail)]).RestingOn(order.Reference);
     }
 
-    private static string Capital(string text) => text.Length == 0 ? text : char.ToUpperInvariant(text[0]) + text[1..];
+    /// <summary>An order's prediction: per litre (for the patient's water, or for an example weight), and for its volume.</summary>
+    private sealed record OrderPrediction(MedicationFact Order, InfusateRecognition Recognition, double? Millilitres)
+    {
+        public double? PerLitre { get; init; }
+
+        public double? Change { get; init; }
+
+        public BodyWater? Example { get; init; }
+    }
+
+    /// <summary>The urine compared with one fluid.</summary>
+    private sealed record UrineComparison(Infusate Infusate, bool MayFall, IReadOnlyList<Finding> Lines);
+
+    private enum Verdict
+    {
+        LimitReached,
+        WouldExceed,
+        Lowers,
+        Close,
+        Within,
+        NoWeight,
+        PerLitreOnly,
+        NoPrediction,
+    }
+
+    /// <summary>Everything the card decided, before wording.</summary>
+    private sealed record Prediction(
+        LabResult? Weight,
+        LabResult? ImplausibleWeight,
+        BodyWater? Water,
+        LabResult? Serum,
+        bool Stale,
+        IReadOnlyList<OrderPrediction> Orders,
+        double Total,
+        bool PredictedAny,
+        IReadOnlyList<UrineComparison> Urine,
+        bool UrineChecked,
+        bool MayFall,
+        Verdict Verdict,
+        double Remaining,
+        CardIndicator Indicator,
+        Allowance? Allowance)
+    {
+        public IReadOnlyList<string> Used { get; init; } = [];
+    }
 }

@@ -3,7 +3,9 @@ using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.Drugs;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Knowledge;
+using CdsNatremia.Core.Rendering;
 using CdsNatremia.Core.Sodium;
 using CdsNatremia.Core.Text;
 
@@ -36,30 +38,32 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
     /// <summary>The liver caution's source.</summary>
     public const string VaptanLabel = "Tolvaptan prescribing information (from memory: liver injury; avoid in liver disease; limited duration of treatment)";
 
-    private const string VaptanRate =
-        "A vasopressin-receptor antagonist causes a water diuresis that can raise sodium faster than the correction limits allow, especially with other sodium-raising treatment or when the cause resolves at the same time.";
-
-    private const string VaptanLiver =
-        "**Liver**: a vasopressin-receptor antagonist (tolvaptan) can injure the liver; its prescribing information (from memory) advises avoiding it in liver disease, including cirrhosis, and limiting the duration of treatment.";
-
-    private const string DesmopressinLowers =
-        "Desmopressin makes the kidney retain water, so while it acts it **lowers** sodium (it does not raise it); when it wears off or is stopped, a water diuresis can follow and the sodium can then rise quickly.";
-
     /// <inheritdoc />
     public string RuleId => "sodium.rate-caution-order";
 
     /// <inheritdoc />
     public bool Handles(HookKind hook) => hook is HookKind.OrderSelect or HookKind.OrderSign;
 
-    /// <summary>The sentence for a chart that shows over-correction, naming the window and its peak.</summary>
-    public static string ReloweringText(RateWindow window, TimeDisplay display)
+    /// <summary>The finding for a chart that shows over-correction, naming the window and its peak.</summary>
+    public static Finding Relowering(RateWindow window)
     {
         Guard.NotNull(window, nameof(window));
-        Guard.NotNull(display, nameof(display));
         var peak = window.PassedAt ?? window.Latest;
-        return Invariant.Format(
-            $"**The chart shows over-correction**: {Cite.Result(peak, display)} is {RateText.Mmol(peak.Value - window.Baseline.Value)} above {Invariant.Number(window.Baseline.Value)} mmol/L ({Markdown.Escape(window.Baseline.Reference)}), at or past the {RateText.Mmol(window.Limit)} limit ({window.LimitLabel}). Giving desmopressin deliberately to slow or re-lower the sodium after over-correction is a **recognised strategy under senior care** (local protocol), with sodium checked often.");
+        return Finding.Of(
+            FindingKind.RateDesmopressinRelowering,
+            Slot.Result("peak", peak),
+            Slot.Number("rise", peak.Value - window.Baseline.Value),
+            Slot.Number("baseline", window.Baseline.Value),
+            Slot.Text("baselineRef", window.Baseline.Reference),
+            Slot.Number("limit", window.Limit),
+            Slot.Phrase("label", window.LimitLabel)).RestingOn(peak.Reference, window.Baseline.Reference);
     }
+
+    /// <summary>
+    /// TRANSITIONAL, for the prescribing warning until it builds findings: <see cref="Relowering"/> worded by the catalogue.
+    /// </summary>
+    public static string ReloweringText(RateWindow window, TimeDisplay display)
+        => PhraseCatalogue.Default.Render(Relowering(window), Guard.NotNull(display, nameof(display)));
 
     /// <inheritdoc />
     public IEnumerable<Card> Produce(DecisionContext context)
@@ -106,53 +110,42 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
     private Card VaptanCard(DecisionContext context, List<(MedicationFact Order, MedicationMatch Match)> matches, Allowance? allowance)
     {
         var names = Names(matches);
-        var findings = Describe(matches, VaptanRate);
+        var reasons = Describe(matches, FindingKind.RateVaptanRate, Weights.Pace);
         var used = matches.Select(m => m.Order.Reference).ToList();
-        findings.Add(VaptanLiver);
-        var liver = LiverDisease(context);
-        if (liver is not null)
+        reasons.Add(Finding.Of(FindingKind.RateVaptanLiver).Weighted(Weights.Cause));
+        if (LiverDisease(context) is { } liver)
         {
             used.Add(liver.Reference);
-            var text = string.IsNullOrWhiteSpace(liver.Text) ? string.Empty : ", \"" + Markdown.Escape(liver.Text) + "\"";
-            findings.Add($"**The record shows liver disease** ({Markdown.Escape(liver.Reference)}{text}): the prescribing information advises avoiding the drug here (from memory).");
+            reasons.Add((string.IsNullOrWhiteSpace(liver.Text)
+                ? Finding.Of(FindingKind.RateVaptanLiverDiseaseUntitled, Slot.Text("ref", liver.Reference))
+                : Finding.Of(FindingKind.RateVaptanLiverDisease, Slot.Text("ref", liver.Reference), Slot.Text("text", liver.Text))).RestingOn(liver.Reference).Weighted(Weights.Urgent));
         }
 
         SeverityBand? band = allowance is null ? null : context.Thresholds.Classify(allowance.Episode.Latest.Value);
         var advisedAgainst = band is SeverityBand.Moderate or SeverityBand.Profound;
-        if (allowance is not null)
+        reasons.Add(LatestSodium(allowance, used));
+        reasons.Add(advisedAgainst
+            ? Finding.Of(FindingKind.RateVaptanGuidelineBand, Slot.Text("band", context.Thresholds.NameOf(band!.Value)), Slot.Text("range", context.Thresholds.RangeOf(band.Value))).Weighted(Weights.Culprit)
+            : Finding.Of(FindingKind.RateVaptanGuideline).Weighted(Weights.Stated));
+
+        var nameSlot = Slot.Text("names", names);
+        var content = new CardContent
         {
-            used.Add(allowance.Episode.Latest.Reference);
-            findings.Add("Latest sodium: " + Cite.Result(allowance.Episode.Latest, context.Display));
-        }
-        else
-        {
-            findings.Add("No usable sodium result was found; the correction cannot be placed against the limits.");
-        }
-
-        findings.Add(advisedAgainst
-            ? Invariant.Format($"**The 2014 European guideline recommends against vasopressin-receptor antagonists in moderate or profound hyponatraemia**, and this patient's latest sodium is {context.Thresholds.NameOf(band!.Value)} ({context.Thresholds.RangeOf(band.Value)}).")
-            : "The 2014 European guideline recommends against vasopressin-receptor antagonists in moderate or profound hyponatraemia; the latest usable sodium is not in those bands.");
-
-        var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**A vasopressin-receptor antagonist is being ordered** as of {context.Display.Time(context.Request.Now)}. Advisory only."))
-            .Bullets("Findings", findings)
-            .Bullets("Where the correction stands (limits)", allowance?.Describe(context.Options.CorrectionRate, context.Display) ?? [])
-            .Bullets("Points clinicians usually weigh (under local protocol; not orders)",
-            [
-                "Whether a vaptan is the right treatment at all here (guideline, liver, duration), decided with a senior clinician.",
-                "If it is given: checking sodium often after the first dose, at the interval local protocol sets, stopping other sodium-raising treatment if the rise approaches the limit, and not restricting fluid at the same time (common practice).",
-            ]);
-        CardFooter.Write(detail, context, [EuropeanOnVaptans, VaptanLabel, .. allowance is null ? [] : RateText.Sources(allowance.Limits)]);
-
-        var summary = advisedAgainst
-            ? Invariant.Format($"{names} ordered at sodium {Invariant.Number(allowance!.Episode.Latest.Value)} mmol/L: 2014 European guideline advises against vaptans here; fast rise, liver risk.")
-            : Invariant.Format($"{names} ordered: can raise sodium too fast; avoid in liver disease; check sodium often and keep within the limits.");
+            Summary = advisedAgainst
+                ? Finding.Of(FindingKind.RateVaptanSummaryAdvisedAgainst, nameSlot, Slot.Number("sodium", allowance!.Episode.Latest.Value))
+                : Finding.Of(FindingKind.RateVaptanSummary, nameSlot),
+            Headline = Finding.Of(FindingKind.RateVaptanHeadline, nameSlot).RestingOn([.. matches.Select(m => m.Order.Reference)]),
+            Reasons = reasons,
+            Steps = allowance?.Describe(context.Options.CorrectionRate) ?? [],
+            NextSteps = [Finding.Of(FindingKind.RateVaptanNextWhether), Finding.Of(FindingKind.RateVaptanNextIfGiven)],
+            Cautions = Cautions(context, allowance),
+            Sources = [EuropeanOnVaptans, VaptanLabel, .. allowance is null ? [] : RateText.Sources(allowance.Limits)],
+        };
         return new Card
         {
-            Summary = Summary.Fit(summary),
+            Content = content,
             // A stale sodium calls for a recheck first: at most a warning.
             Indicator = allowance?.Binding.Status == RateStatus.AtOrPast && !context.Sodium.LatestIsStale ? CardIndicator.Critical : CardIndicator.Warning,
-            Detail = detail.ToString(),
             Topic = Topic,
             RuleIds = [RuleId, RuleId + ".vaptan"],
             ResourcesUsed = used.Distinct(StringComparer.Ordinal).ToList(),
@@ -162,47 +155,63 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
     private Card DesmopressinCard(DecisionContext context, List<(MedicationFact Order, MedicationMatch Match)> matches, Allowance? allowance)
     {
         var names = Names(matches);
-        var findings = Describe(matches, DesmopressinLowers);
+        var reasons = Describe(matches, FindingKind.RateDesmopressinLowers, Weights.Pace);
         var used = matches.Select(m => m.Order.Reference).ToList();
         var overcorrected = allowance?.Overcorrected;
-        if (allowance is not null)
-        {
-            used.Add(allowance.Episode.Latest.Reference);
-            findings.Add("Latest sodium: " + Cite.Result(allowance.Episode.Latest, context.Display));
-        }
-        else
-        {
-            findings.Add("No usable sodium result was found; the correction cannot be placed against the limits.");
-        }
-
+        reasons.Add(LatestSodium(allowance, used));
         if (overcorrected is not null)
         {
-            findings.Add(ReloweringText(overcorrected, context.Display));
+            reasons.Add(Relowering(overcorrected).Weighted(Weights.Culprit));
         }
 
-        var detail = new DetailWriter()
-            .Paragraph(Invariant.Format($"**Desmopressin is being ordered** as of {context.Display.Time(context.Request.Now)}: it lowers sodium. Advisory only."))
-            .Bullets("Findings", findings)
-            .Bullets("Where the correction stands (limits)", allowance?.Describe(context.Options.CorrectionRate, context.Display) ?? [])
-            .Bullets("Points clinicians usually weigh (under local protocol; not orders)",
-            [
-                "Checking sodium often while desmopressin acts and after it is stopped, at the interval local protocol sets, and matching fluid intake to the plan.",
-                "Discussing the plan with a senior clinician, above all when the patient is at high risk of osmotic demyelination.",
-            ]);
-        CardFooter.Write(detail, context, allowance is null ? [] : RateText.Sources(allowance.Limits));
-
-        var summary = overcorrected is not null
-            ? Invariant.Format($"{names} ordered after over-correction: it lowers sodium; deliberate re-lowering is a recognised strategy under senior care.")
-            : Invariant.Format($"{names} ordered: it lowers sodium while it acts; check sodium often.");
+        var nameSlot = Slot.Text("names", names);
+        var content = new CardContent
+        {
+            Summary = Finding.Of(overcorrected is not null ? FindingKind.RateDesmopressinSummaryRelowering : FindingKind.RateDesmopressinSummary, nameSlot),
+            Headline = Finding.Of(overcorrected is not null ? FindingKind.RateDesmopressinHeadlineRelowering : FindingKind.RateDesmopressinHeadline, nameSlot).RestingOn([.. matches.Select(m => m.Order.Reference)]),
+            Reasons = reasons,
+            Steps = allowance?.Describe(context.Options.CorrectionRate) ?? [],
+            NextSteps = [Finding.Of(FindingKind.RateDesmopressinNextCheck), Finding.Of(FindingKind.RateDesmopressinNextSenior)],
+            Cautions = Cautions(context, allowance),
+            Sources = allowance is null ? [] : RateText.Sources(allowance.Limits),
+        };
         return new Card
         {
-            Summary = Summary.Fit(summary),
+            Content = content,
             Indicator = CardIndicator.Warning,
-            Detail = detail.ToString(),
             Topic = Topic,
             RuleIds = [RuleId, RuleId + ".desmopressin"],
             ResourcesUsed = used.Distinct(StringComparer.Ordinal).ToList(),
         };
+    }
+
+    /// <summary>The latest sodium the card placed against the limits, or that none could be used.</summary>
+    private static Finding LatestSodium(Allowance? allowance, List<string> used)
+    {
+        if (allowance is null)
+        {
+            return Finding.Of(FindingKind.RateOrderNoSodium).Weighted(Weights.DataGap);
+        }
+
+        used.Add(allowance.Episode.Latest.Reference);
+        return RateText.Cited(FindingKind.RateOrderLatest, allowance.Episode.Latest).Weighted(Weights.Context);
+    }
+
+    /// <summary>The patient-specific cautions of an order card: a stale sodium, high risk.</summary>
+    internal static IReadOnlyList<Finding> Cautions(DecisionContext context, Allowance? allowance)
+    {
+        var cautions = new List<Finding>();
+        if (allowance is not null && context.Sodium.LatestIsStale)
+        {
+            cautions.Add(RateText.Stale(context.Sodium.StaleAfterHours));
+        }
+
+        if (allowance is not null && RateText.HighRiskCaution(allowance.Factors, allowance.Limits) is { } highRisk)
+        {
+            cautions.Add(highRisk);
+        }
+
+        return cautions;
     }
 
     private static string Names(List<(MedicationFact Order, MedicationMatch Match)> matches)
@@ -211,9 +220,15 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
         return names.Length == 0 ? names : char.ToUpperInvariant(names[0]) + names[1..];
     }
 
-    private static List<string> Describe(List<(MedicationFact Order, MedicationMatch Match)> matches, string why)
+    private static List<Finding> Describe(List<(MedicationFact Order, MedicationMatch Match)> matches, string whyKind, int weight)
         => matches
-            .Select(m => Invariant.Format($"**{Markdown.Escape(m.Match.Ingredient)}** ({Markdown.Escape(m.Order.Reference)}; matched by {Markdown.Escape(m.Match.By)}; {Markdown.Escape(m.Match.Set.Label)}). {why}"))
+            .Select(m => Finding.Of(
+                FindingKind.RateOrderDrug,
+                Slot.Text("ingredient", m.Match.Ingredient),
+                Slot.Text("ref", m.Order.Reference),
+                Slot.Text("by", m.Match.By),
+                Slot.Text("set", m.Match.Set.Label),
+                Slot.Phrase("why", Finding.Of(whyKind))).RestingOn(m.Order.Reference).Weighted(weight))
             .ToList();
 
     private static ConditionFact? LiverDisease(DecisionContext context)

@@ -1,4 +1,5 @@
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 
 namespace CdsNatremia.Core.CorrectionRate;
 
@@ -15,7 +16,7 @@ namespace CdsNatremia.Core.CorrectionRate;
 /// <param name="Latest">The result the rise is measured to.</param>
 /// <param name="Rise">Latest minus baseline, mmol/L (negative when falling).</param>
 /// <param name="Limit">The limit that applies, mmol/L.</param>
-/// <param name="LimitLabel">Which limit, e.g. "first 24 h" or "any 24 h, high risk".</param>
+/// <param name="LimitLabel">Which limit, as a phrase (e.g. <see cref="FindingKind.RateLimitFirstDay"/>: "first 24 h after the nadir").</param>
 /// <param name="HoursLeft">Hours from now to the end of an anchored window (0 when it has ended); null for a rolling window.</param>
 /// <param name="ProjectedRise">The rise at the window's end if the current rate goes on; null when it cannot be projected.</param>
 /// <param name="Status">Where the rise stands.</param>
@@ -28,7 +29,7 @@ public sealed record RateWindow(
     LabResult Latest,
     double Rise,
     double Limit,
-    string LimitLabel,
+    Finding LimitLabel,
     double? HoursLeft,
     double? ProjectedRise,
     RateStatus Status)

@@ -1,4 +1,5 @@
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 
 namespace CdsNatremia.Core.CorrectionRate;
 
@@ -68,13 +69,13 @@ public static class RateWindows
         // Rounded to 0.1 mmol/L, the precision cards print: 127.7 − 117.7 must read as 10, not 9.999999999999986.
         var rise = Math.Round(latest.Value - baseline.Value, 1, MidpointRounding.AwayFromZero);
         var limit = lengthHours <= 24 ? limits.Day(anchored, highRisk) : limits.TwoDay(highRisk);
-        var label = (lengthHours <= 24, anchored) switch
+        var label = Finding.Of((lengthHours <= 24, anchored) switch
         {
-            (true, true) => highRisk ? "any 24 h, high risk" : "first 24 h after the nadir",
-            (true, false) => highRisk ? "any 24 h, high risk" : "each 24 h after the first",
-            (false, true) => highRisk ? "48 h, high risk" : "first 48 h after the nadir",
-            (false, false) => highRisk ? "48 h, high risk" : "any 48 h",
-        };
+            (true, true) => highRisk ? FindingKind.RateLimitDayHighRisk : FindingKind.RateLimitFirstDay,
+            (true, false) => highRisk ? FindingKind.RateLimitDayHighRisk : FindingKind.RateLimitLaterDay,
+            (false, true) => highRisk ? FindingKind.RateLimitTwoDaysHighRisk : FindingKind.RateLimitFirstTwoDays,
+            (false, false) => highRisk ? FindingKind.RateLimitTwoDaysHighRisk : FindingKind.RateLimitAnyTwoDays,
+        });
 
         double? hoursLeft = anchored ? Math.Max(0, (end - now).TotalHours) : null;
         var elapsed = (latest.EffectiveAt - baseline.EffectiveAt).TotalHours;

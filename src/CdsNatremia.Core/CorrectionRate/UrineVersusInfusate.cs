@@ -1,7 +1,6 @@
-using CdsNatremia.Core.Text;
-using CdsNatremia.Core.Assessment;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Workup;
 
 namespace CdsNatremia.Core.CorrectionRate;
@@ -39,41 +38,52 @@ public sealed record UrineVersusInfusate(LabResult? Osmolality, LabResult? Sodiu
         return new UrineVersusInfusate(WorkupData.NewestSince(facts, Analyte.UrineOsmolality, from), sodium, potassium);
     }
 
-    /// <summary>The comparison with one infusate: whether the prediction holds, and each comparison made, in words.</summary>
-    public (bool MayFall, IReadOnlyList<string> Lines) Compare(Infusate infusate, TimeDisplay display)
+    /// <summary>The comparison with one infusate: whether the prediction holds, and each comparison made, as findings.</summary>
+    public (bool MayFall, IReadOnlyList<Finding> Lines) Compare(Infusate infusate)
     {
         Guard.NotNull(infusate, nameof(infusate));
-        var lines = new List<string>();
+        var lines = new List<Finding>();
         var mayFall = false;
         if (Osmolality is { } osm)
         {
             var above = osm.Value > infusate.Osmolality;
             mayFall |= above;
-            lines.Add(Invariant.Format(
-                $"urine osmolality {Invariant.Number(osm.Value)} mOsm/kg ({Cite.Result(osm, display)}) is {(above ? "**above**" : "not above")} the fluid's {Invariant.Number(infusate.Osmolality)} mOsm/kg"));
+            lines.Add(Finding.Of(
+                above ? FindingKind.RateUrineOsmolalityAbove : FindingKind.RateUrineOsmolalityNotAbove,
+                Slot.Number("osmolality", osm.Value),
+                Slot.Text("ref", osm.Reference),
+                Slot.Time("time", osm.EffectiveAt),
+                Slot.Number("fluid", infusate.Osmolality)).RestingOn(osm.Reference));
         }
 
         if (Sodium is { } una)
         {
-            var fluid = infusate.Sodium + infusate.Potassium;
+            var fluid = Slot.Number("fluid", infusate.Sodium + infusate.Potassium);
+            var fluidSum = infusate.Sodium + infusate.Potassium;
             if (Potassium is { } uk)
             {
                 var sum = una.Value + uk.Value;
-                var above = sum > fluid;
+                var above = sum > fluidSum;
                 mayFall |= above;
-                lines.Add(Invariant.Format(
-                    $"urine sodium + potassium = {Invariant.Number(una.Value)} + {Invariant.Number(uk.Value)} = {Invariant.Number(sum)} mmol/L ({Cite.Result(una, display)}; {Cite.Result(uk, display)}) is {(above ? "**above**" : "not above")} the fluid's sodium + potassium of {Invariant.Number(fluid)} mmol/L"));
-            }
-            else if (una.Value > fluid)
-            {
-                mayFall = true;
-                lines.Add(Invariant.Format(
-                    $"urine sodium alone, {Invariant.Number(una.Value)} mmol/L ({Cite.Result(una, display)}), is **above** the fluid's sodium + potassium of {Invariant.Number(fluid)} mmol/L (urine potassium not available; it would only add to the sum)"));
+                lines.Add(Finding.Of(
+                    above ? FindingKind.RateUrineSumAbove : FindingKind.RateUrineSumNotAbove,
+                    Slot.Number("sodium", una.Value),
+                    Slot.Number("potassium", uk.Value),
+                    Slot.Number("sum", sum),
+                    Slot.Text("sodiumRef", una.Reference),
+                    Slot.Text("potassiumRef", uk.Reference),
+                    fluid).RestingOn(una.Reference, uk.Reference));
             }
             else
             {
-                lines.Add(Invariant.Format(
-                    $"urine sodium {Invariant.Number(una.Value)} mmol/L ({Cite.Result(una, display)}) is not above the fluid's {Invariant.Number(fluid)} mmol/L, but without a urine potassium the sum of urine sodium and potassium cannot be compared"));
+                var above = una.Value > fluidSum;
+                mayFall |= above;
+                lines.Add(Finding.Of(
+                    above ? FindingKind.RateUrineSodiumAloneAbove : FindingKind.RateUrineSodiumAloneNotAbove,
+                    Slot.Number("sodium", una.Value),
+                    Slot.Text("ref", una.Reference),
+                    Slot.Time("time", una.EffectiveAt),
+                    fluid).RestingOn(una.Reference));
             }
         }
 

@@ -2,6 +2,7 @@ using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.CorrectionRate;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Tests.Support;
 
 namespace CdsNatremia.Core.Tests.Clinical;
@@ -29,9 +30,12 @@ public class DesalinationTests
         Assert.Equal(CardIndicator.Warning, card.Indicator);
         Assert.Contains("sodium may fall", card.Summary, StringComparison.Ordinal);
         Assert.DoesNotContain("within the", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("urine osmolality 640 mOsm/kg", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("the fluid's 308 mOsm/kg", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("Ann Intern Med 1997;126:20", card.Detail, StringComparison.Ordinal);
+        Assert.Equal(FindingKind.RateInfusionSummaryMayFallPredicted, card.Content!.Summary.Kind);
+        Assert.Contains(card.Content.Reasons, f => f.Kind == FindingKind.RateInfusionUrineMayFall);
+        Assert.Contains("sodium may fall", card.Report, StringComparison.Ordinal); // the weightiest reason, on the short card
+        Assert.Contains("urine osmolality 640 mOsm/kg", card.Report, StringComparison.Ordinal);
+        Assert.Contains("the fluid's 308 mOsm/kg", card.Report, StringComparison.Ordinal);
+        Assert.Contains("Ann Intern Med 1997;126:20", card.Report, StringComparison.Ordinal);
         Assert.Contains("Observation/uosm", card.ResourcesUsed);
     }
 
@@ -50,7 +54,7 @@ public class DesalinationTests
     {
         var card = InfusionCard(Some.Lab(Analyte.UrineSodium, urineSodium, 3), Some.Lab(Analyte.UrinePotassium, urinePotassium, 3));
         Assert.Equal(mayFall, card.Summary.Contains("sodium may fall", StringComparison.Ordinal));
-        Assert.Contains(FormattableString.Invariant($"urine sodium + potassium = {urineSodium} + {urinePotassium}"), card.Detail, StringComparison.Ordinal);
+        Assert.Contains(FormattableString.Invariant($"urine sodium + potassium = {urineSodium} + {urinePotassium}"), card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -59,14 +63,15 @@ public class DesalinationTests
         // 160 > 154 even before urine potassium is added (it can only raise the sum).
         var card = InfusionCard(Some.Lab(Analyte.UrineSodium, 160, 3));
         Assert.Contains("sodium may fall", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("urine potassium not available", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("urine potassium not available", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Produce_NoUrineData_SaysThePredictionAssumesNoUrineLosses()
     {
         var card = InfusionCard();
-        Assert.Contains("The prediction assumes no urine losses.", card.Detail, StringComparison.Ordinal);
+        Assert.Contains(card.Content!.Reasons, f => f.Kind == FindingKind.RateInfusionUrineNone);
+        Assert.Contains("The prediction assumes no urine losses.", card.Report, StringComparison.Ordinal);
         Assert.Contains("predicted sodium change +1 mmol/L", card.Summary, StringComparison.Ordinal);
     }
 
@@ -77,7 +82,7 @@ public class DesalinationTests
         var facts = SomeClinical.Woman(55, Some.Sodium(118, 3), Some.Lab(Analyte.BodyWeight, 60, 3), Some.Lab(Analyte.UrineOsmolality, 640, 3));
         var card = Assert.Single(SomeClinical.Decide(facts, HookKind.OrderSign, [SomeClinical.Draft("h", "sodium chloride 3%", 150, "intravenous")]), c => c.Topic == InfusionPredictionCardProducer.Topic);
         Assert.DoesNotContain("sodium may fall", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("not above the fluid's 1026 mOsm/kg", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("not above the fluid's 1026 mOsm/kg", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -86,8 +91,9 @@ public class DesalinationTests
         // Ringer's lactate: sodium 130 (reference sheet), potassium 4 and osmolality 273 (from memory, InfusionOptions).
         var infusate = Infusate.Of(InfusateKind.RingersLactate, new InfusionOptions());
         var urine = new UrineVersusInfusate(Some.Lab(Analyte.UrineOsmolality, 280), Some.Lab(Analyte.UrineSodium, 100), Some.Lab(Analyte.UrinePotassium, 30));
-        var (mayFall, lines) = urine.Compare(infusate, CdsNatremia.Core.Text.TimeDisplay.Utc(Some.Now));
+        var (mayFall, lines) = urine.Compare(infusate);
         Assert.True(mayFall); // 280 > 273 and 130 > 134 is false: one is enough
-        Assert.Contains(lines, l => l.Contains("the fluid's sodium + potassium of 134 mmol/L", StringComparison.Ordinal));
+        Assert.Contains(lines, l => l.Kind == FindingKind.RateUrineOsmolalityAbove && l["fluid"] == new NumberValue(273, null));
+        Assert.Contains(lines, l => l.Kind == FindingKind.RateUrineSumNotAbove && l["fluid"] == new NumberValue(134, null));
     }
 }

@@ -2,6 +2,7 @@ using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.CorrectionRate;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Tests.Support;
 
 namespace CdsNatremia.Core.Tests.Clinical;
@@ -33,18 +34,22 @@ public class VaptanAndDesmopressinOrderTests
         // 2014 European guideline (Spasovski et al.): recommends against vaptans in moderate or profound hyponatraemia.
         var card = Assert.Single(Orders(Some.Facts(Some.Sodium(sodium, 3)), Tolvaptan));
         Assert.Equal(RateCautionOrderCardProducer.Topic, card.Topic);
-        Assert.Contains("**The 2014 European guideline recommends against vasopressin-receptor antagonists in moderate or profound hyponatraemia**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("latest sodium is " + band, card.Detail, StringComparison.Ordinal);
+        var guideline = Assert.Single(card.Content!.Reasons, f => f.Kind == FindingKind.RateVaptanGuidelineBand);
+        Assert.Equal(new TextValue(band, Escape: true), guideline["band"]);
+        Assert.Equal(FindingKind.RateVaptanSummaryAdvisedAgainst, card.Content.Summary.Kind);
+        Assert.Contains("**The 2014 European guideline recommends against vasopressin-receptor antagonists in moderate or profound hyponatraemia**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("latest sodium is " + band, card.Report, StringComparison.Ordinal);
         Assert.Contains("advises against vaptans here", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("can injure the liver", card.Detail, StringComparison.Ordinal); // prescribing information, from memory
-        Assert.Contains("limiting the duration of treatment", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("can injure the liver", card.Report, StringComparison.Ordinal); // prescribing information, from memory
+        Assert.Contains("limiting the duration of treatment", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Produce_VaptanInMildHyponatraemia_GuidelineStatedButNotForThisBand()
     {
         var card = Assert.Single(Orders(Some.Facts(Some.Sodium(131, 3)), Tolvaptan));
-        Assert.Contains("the latest usable sodium is not in those bands", card.Detail, StringComparison.Ordinal);
+        Assert.Contains(card.Content!.Reasons, f => f.Kind == FindingKind.RateVaptanGuideline);
+        Assert.Contains("the latest usable sodium is not in those bands", card.Report, StringComparison.Ordinal);
         Assert.DoesNotContain("advises against vaptans here", card.Summary, StringComparison.Ordinal);
         Assert.Contains("avoid in liver disease", card.Summary, StringComparison.Ordinal);
     }
@@ -55,7 +60,8 @@ public class VaptanAndDesmopressinOrderTests
         // ICD-10 K74.6 cirrhosis (from memory); the label advises avoiding tolvaptan in liver disease (from memory).
         var facts = Some.Facts(Some.Sodium(127, 3)) with { Conditions = [SomeClinical.Condition("cirr", "K74.6", "Cirrhosis of liver")] };
         var card = Assert.Single(Orders(facts, Tolvaptan));
-        Assert.Contains("**The record shows liver disease** (Condition/cirr", card.Detail, StringComparison.Ordinal);
+        Assert.Contains(card.Content!.Reasons, f => f.Kind == FindingKind.RateVaptanLiverDisease && f.Evidence.Contains("Condition/cirr"));
+        Assert.Contains("**The record shows liver disease** (Condition/cirr", card.Report, StringComparison.Ordinal);
         Assert.Contains("Condition/cirr", card.ResourcesUsed);
     }
 
@@ -90,7 +96,8 @@ public class VaptanAndDesmopressinOrderTests
         var card = Assert.Single(Orders(facts, Desmopressin));
         Assert.Equal(RateCautionOrderCardProducer.Topic, card.Topic);
         Assert.Contains("it lowers sodium", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("**lowers** sodium (it does not raise it)", card.Detail, StringComparison.Ordinal);
+        Assert.Contains(card.Content!.Reasons, f => f.Kind == FindingKind.RateDesmopressinRelowering);
+        Assert.Contains("**lowers** sodium (it does not raise it)", card.Report, StringComparison.Ordinal);
         Assert.Contains("recognised strategy under senior care", card.Summary, StringComparison.Ordinal);
     }
 

@@ -2,6 +2,7 @@ using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.CorrectionRate;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Knowledge;
 using CdsNatremia.Core.Tests.Support;
 
@@ -19,8 +20,9 @@ public class CorrectionRateCardProducerTests
 
     private static IReadOnlyList<Card> RateCards(PatientFacts facts, HookKind hook = HookKind.PatientView, IReadOnlyList<string>? newResults = null)
     {
+        // Through the engine, so each card is rendered (summary, short detail, report) as it is sent.
         var request = Some.Request(facts, hook) with { NewResultIds = newResults ?? [] };
-        return new CorrectionRateCardProducer().Produce(new DecisionContext(request, new RuleOptions(), Knowledge)).ToList();
+        return new DecisionEngine([new CorrectionRateCardProducer()], new RuleOptions(), Knowledge).Decide(request);
     }
 
     [Fact]
@@ -30,16 +32,26 @@ public class CorrectionRateCardProducerTests
         var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(112, 21, id: "na-nadir"), Some.Sodium(118, 11), Some.Sodium(124, 1, id: "na-last"))));
         Assert.Equal(CardIndicator.Critical, card.Indicator);
         Assert.Equal("correction-rate", card.Topic);
+        var content = card.Content!;
+        Assert.Equal(FindingKind.RateFastSummaryPast, content.Summary.Kind);
+        Assert.Equal(12, RateFindings.Number(content.Summary, "rise"));
+        Assert.Equal(10, RateFindings.Number(content.Summary, "limit"));
+        Assert.Equal(FindingKind.RateLimitFirstDay, RateFindings.Phrase(content.Summary, "label").Kind);
         Assert.Contains("12 mmol/L in 20 h", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("Observation/na-nadir", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("Observation/na-last", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("124 − 112 = 12 mmol/L", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("Hours left in that window: 3 h", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("**14.4 mmol/L**", card.Detail, StringComparison.Ordinal); // 12 + 0.6 × 4
-        Assert.Contains("senior clinician", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("chronic hyponatremia (present 48 h or more", card.Detail, StringComparison.Ordinal); // acute vs chronic, 2014 European guideline
-        Assert.Contains("osmotic demyelination", card.Detail, StringComparison.Ordinal); // cautions present
-        Assert.Contains("Spasovski", card.Detail, StringComparison.Ordinal);
+        Assert.Equal(3, RateFindings.Number(RateFindings.Of(content.Reasons, FindingKind.RateFastHoursLeft), "hours"), 6);
+        Assert.Equal(14.4, RateFindings.Number(RateFindings.Of(content.Reasons, FindingKind.RateFastProjection), "projected"), 6); // 12 + 0.6 × 4
+        Assert.Equal(FindingKind.RateFastNextRelower, content.NextSteps[2].Kind); // past the limit: re-lowering is discussed
+        Assert.Contains("Observation/na-nadir", card.Report, StringComparison.Ordinal);
+        Assert.Contains("Observation/na-last", card.Report, StringComparison.Ordinal);
+        Assert.Contains("124 − 112 = 12 mmol/L", card.Report, StringComparison.Ordinal);
+        Assert.Contains("Hours left in that window: 3 h", card.Report, StringComparison.Ordinal);
+        Assert.Contains("**14.4 mmol/L**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("senior clinician", card.Report, StringComparison.Ordinal);
+        Assert.Contains("chronic hyponatremia (present 48 h or more", card.Report, StringComparison.Ordinal); // acute vs chronic, 2014 European guideline
+        Assert.Contains(SafetyCautions.Standing, card.Detail, StringComparison.Ordinal); // the standing cautions line
+        Assert.Contains(SafetyCautions.CorrectionLimits, card.Report, StringComparison.Ordinal); // the full cautions, with osmotic demyelination
+        Assert.Contains("Spasovski", card.Report, StringComparison.Ordinal);
+        Assert.True(card.Detail.Length <= 700, card.Detail);
     }
 
     [Fact]
@@ -47,7 +59,9 @@ public class CorrectionRateCardProducerTests
     {
         var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(112, 21), Some.Sodium(121, 1))));
         Assert.Equal(CardIndicator.Warning, card.Indicator); // 9 is within 2 of 10
+        Assert.Equal(FindingKind.RateFastSummaryApproaching, card.Content!.Summary.Kind);
         Assert.Contains("approaching", card.Summary, StringComparison.Ordinal);
+        Assert.Equal(FindingKind.RateFastNextSlow, card.Content.NextSteps[2].Kind);
     }
 
     [Fact]
@@ -76,8 +90,12 @@ public class CorrectionRateCardProducerTests
         var cards = RateCards(Some.Facts(Some.Sodium(110, 21, id: "na-nadir"), Some.Sodium(122, 9, id: "na-peak"), Some.Sodium(118, 1)));
         var card = Assert.Single(cards);
         Assert.Equal(CdsNatremia.Core.Cards.CardIndicator.Critical, card.Indicator);
+        Assert.Equal(FindingKind.RateFastSummaryPassed, card.Content!.Summary.Kind);
+        Assert.Equal(122, RateFindings.Number(card.Content.Summary, "peak"));
+        var passed = RateFindings.Of(card.Content.Reasons, FindingKind.RateFastPassed);
+        Assert.Contains("Observation/na-peak", passed.Evidence);
         Assert.Contains("limit was passed", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("Observation/na-peak", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("Observation/na-peak", card.Detail, StringComparison.Ordinal); // the weightiest reason is on the short card
     }
 
     [Fact]
@@ -88,6 +106,7 @@ public class CorrectionRateCardProducerTests
         var facts = Some.Facts(Some.Sodium(112, 21), Some.Sodium(120, 1), Some.Sodium(110, 1 - (20.0 / 3600)));
         var cards = RateCards(facts);
         Assert.All(cards, c => Assert.Contains("Advisory only", c.Detail, StringComparison.Ordinal));
+        Assert.All(cards, c => Assert.Contains(FindingKind.RateFastStepSameTime, c.Content!.Steps.Select(f => f.Kind)));
     }
 
     [Fact]
@@ -112,8 +131,10 @@ public class CorrectionRateCardProducerTests
         // Nadir ≤ 105 mmol/L: high risk (US expert panel, Verbalis et al. 2013): 8 in any 24 h, so 8 is at the limit.
         var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(105, 21), Some.Sodium(113, 1))));
         Assert.Equal(CardIndicator.Critical, card.Indicator);
-        Assert.Contains("High risk of osmotic demyelination", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("lowest sodium 105 mmol/L", card.Detail, StringComparison.Ordinal);
+        var caution = RateFindings.Of(card.Content!.Cautions, FindingKind.RateHighRiskCaution);
+        Assert.Equal(8, RateFindings.Number(caution, "day"));
+        Assert.Contains("High risk of osmotic demyelination", card.Detail, StringComparison.Ordinal); // the caution is on the short card
+        Assert.Contains("lowest sodium 105 mmol/L", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -130,7 +151,8 @@ public class CorrectionRateCardProducerTests
         var k = Some.Lab(Analyte.Potassium, potassium, 2) with { ReferenceLow = referenceLow };
         var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(112, 21), Some.Sodium(120, 1), k)));
         Assert.Equal(highRisk ? CardIndicator.Critical : CardIndicator.Warning, card.Indicator); // 8: at the high-risk limit, or approaching 10
-        Assert.Equal(highRisk, card.Detail.Contains("low potassium: ", StringComparison.Ordinal));
+        Assert.Equal(highRisk, RateFindings.Has(card.Content!.Cautions, FindingKind.RateHighRiskCaution));
+        Assert.Equal(highRisk, card.Report.Contains("low potassium: ", StringComparison.Ordinal));
     }
 
     [Fact]
@@ -142,8 +164,9 @@ public class CorrectionRateCardProducerTests
         };
         var card = Assert.Single(RateCards(facts));
         Assert.Equal(CardIndicator.Critical, card.Indicator);
-        Assert.Contains("alcohol use disorder", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("Condition/c1", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("alcohol use disorder", card.Detail, StringComparison.Ordinal); // named in the short caution
+        Assert.Contains("Condition/c1", card.Report, StringComparison.Ordinal);
+        Assert.Contains("Condition/c1", card.ResourcesUsed);
     }
 
     [Fact]
@@ -164,7 +187,8 @@ public class CorrectionRateCardProducerTests
         };
         var card = Assert.Single(RateCards(facts));
         Assert.Contains("8 mmol/L", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("Observation/na-err", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("1 item(s) that could not be read", card.Detail, StringComparison.Ordinal); // counted on the short card
+        Assert.Contains("Observation/na-err", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -173,6 +197,9 @@ public class CorrectionRateCardProducerTests
         // Minimum goal 4 mmol/L per day (US expert panel, Verbalis et al. 2013); 118 → 119 in 24 h is below it.
         var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(118, 25), Some.Sodium(119, 1))));
         Assert.Equal(CardIndicator.Info, card.Indicator);
+        Assert.Equal(FindingKind.RateSlowSummaryRose, card.Content!.Summary.Kind);
+        Assert.Equal(4, RateFindings.Number(card.Content.Summary, "goal"));
+        Assert.Equal(1, RateFindings.Number(card.Content.Headline, "perDay"), 6); // 1 mmol/L over 24 h
         Assert.Contains("minimum goal of 4 mmol/L", card.Summary, StringComparison.Ordinal);
     }
 
@@ -184,7 +211,9 @@ public class CorrectionRateCardProducerTests
     public void Produce_MixedSpecimens_Labelled()
     {
         var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(112, 21), Some.Sodium(124, 1, specimen: SpecimenKind.ArterialBlood))));
-        Assert.Contains("whole-blood specimen", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("different kinds of specimen", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("whole-blood specimen", card.Report, StringComparison.Ordinal);
+        Assert.Contains("different kinds of specimen", card.Report, StringComparison.Ordinal);
+        var day = card.Content!.Steps.First(f => f.Kind == FindingKind.RateWindow);
+        Assert.Contains(Assert.IsType<ListValue>(day["extras"]).Values, v => v is PhraseValue { Finding.Kind: FindingKind.RateWindowMixedSpecimens });
     }
 }

@@ -1,5 +1,6 @@
 using CdsNatremia.Core.CorrectionRate;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Knowledge;
 using CdsNatremia.Core.Tests.Support;
 
@@ -15,7 +16,7 @@ public class HighRiskFactorsTests
         var nadir = Some.Sodium(112, hoursAgo: 30);
         var facts = Some.Facts(nadir, Some.Lab(Analyte.Potassium, 2.9, hoursAgo: 29), Some.Lab(Analyte.Potassium, 4.0, hoursAgo: 2));
         var factors = HighRiskFactors.Find(facts, nadir, KnowledgeBase.Empty, new CorrectionRateOptions());
-        Assert.Contains(factors, f => f.Description.Contains("low potassium: 2.9", StringComparison.Ordinal));
+        Assert.Contains(factors, f => f.Kind == "potassium" && f.Description.Kind == FindingKind.RateFactorPotassiumConfigured && f.Description["potassium"] == new NumberValue(2.9, null));
     }
 
     [Fact]
@@ -24,7 +25,7 @@ public class HighRiskFactorsTests
         var nadir = Some.Sodium(112, hoursAgo: 30);
         var facts = Some.Facts(nadir, Some.Lab(Analyte.Potassium, 2.9, hoursAgo: 24 * 400), Some.Lab(Analyte.Potassium, 4.0, hoursAgo: 2));
         var factors = HighRiskFactors.Find(facts, nadir, KnowledgeBase.Empty, new CorrectionRateOptions());
-        Assert.DoesNotContain(factors, f => f.Description.Contains("potassium", StringComparison.Ordinal));
+        Assert.DoesNotContain(factors, f => f.Kind == "potassium");
     }
 
     [Fact]

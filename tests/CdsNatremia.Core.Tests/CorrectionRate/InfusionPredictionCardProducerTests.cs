@@ -2,6 +2,7 @@ using CdsNatremia.Core.Cards;
 using CdsNatremia.Core.CorrectionRate;
 using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Knowledge;
 using CdsNatremia.Core.Tests.Support;
 
@@ -36,10 +37,19 @@ public class InfusionPredictionCardProducerTests
         var card = Assert.Single(Cards(facts, [Draft("nacl3", "sodium chloride 3% intravenous solution")]));
         Assert.Equal("infusion-prediction", card.Topic);
         Assert.Equal(CardIndicator.Warning, card.Indicator); // hypertonic saline within the allowance
+        var content = card.Content!;
+        Assert.Equal(FindingKind.RateInfusionSummaryPredicted, content.Summary.Kind);
+        Assert.Equal(FindingKind.RateInfusionVerdictWithin, RateFindings.Phrase(content.Summary, "verdict").Kind);
+        var predicted = RateFindings.Of(content.Reasons, FindingKind.RateInfusionPredictedOne);
+        Assert.Equal(1.9, RateFindings.Number(RateFindings.Phrase(predicted, "change"), "value"), 6);
+        Assert.Equal(10, RateFindings.Number(predicted, "remaining"));
+        Assert.Equal(30, RateFindings.Number(RateFindings.Of(content.Steps, FindingKind.RateInfusionStepWater), "litres"), 6);
         Assert.Contains("+1.9 mmol/L", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("= **30 L**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("(513 + 0 − 118) / (30 + 1) = **+12.7 mmol/L**", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("allowance left now: **10 mmol/L**", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("+1.9 mmol/L", card.Detail, StringComparison.Ordinal); // the prediction is the weightiest reason
+        Assert.Contains("= **30 L**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("(513 + 0 − 118) / (30 + 1) = **+12.7 mmol/L**", card.Report, StringComparison.Ordinal);
+        Assert.Contains("allowance left now: **10 mmol/L**", card.Report, StringComparison.Ordinal);
+        Assert.True(card.Detail.Length <= 700, card.Detail);
     }
 
     [Fact]
@@ -49,6 +59,7 @@ public class InfusionPredictionCardProducerTests
         var facts = Woman55(Some.Sodium(112, 11), Some.Sodium(119, 1), Some.Lab(Analyte.BodyWeight, 50, 3));
         var card = Assert.Single(Cards(facts, [Draft("big", "sodium chloride 3%", 1000)]), c => c.Topic == "infusion-prediction");
         Assert.Equal(CardIndicator.Critical, card.Indicator);
+        Assert.Equal(FindingKind.RateInfusionVerdictExceed, RateFindings.Phrase(card.Content!.Summary, "verdict").Kind);
         Assert.Contains("would exceed the 3 mmol/L left", card.Summary, StringComparison.Ordinal);
     }
 
@@ -60,17 +71,21 @@ public class InfusionPredictionCardProducerTests
         var facts = Woman55(Some.Sodium(112, 90), Some.Sodium(119, 80), Some.Lab(Analyte.BodyWeight, 50, 3));
         var card = Assert.Single(Cards(facts, [Draft("big", "sodium chloride 3%", 1000)]), c => c.Topic == "infusion-prediction");
         Assert.Equal(CardIndicator.Warning, card.Indicator);
-        Assert.Contains("h old", card.Detail, StringComparison.Ordinal);
+        Assert.True(RateFindings.Has(card.Content!.Cautions, FindingKind.RateInfusionSerumStale));
+        Assert.Contains("h old", card.Detail, StringComparison.Ordinal); // a caution: on the short card
     }
 
     [Fact]
     public void Produce_NoWeight_SaysSoAndGivesOnlyALabelledExamplePerLitre()
     {
         var card = Assert.Single(Cards(Woman55(Some.Sodium(118, 4)), [Draft("nacl3", "sodium chloride 3%")]));
+        Assert.True(RateFindings.Has(card.Content!.Reasons, FindingKind.RateInfusionNoWeight));
+        Assert.Equal(FindingKind.RateInfusionNextWeight, card.Content.NextSteps[0].Kind);
+        Assert.Equal(FindingKind.RateInfusionVerdictNoWeight, RateFindings.Phrase(card.Content.Summary, "verdict").Kind);
         Assert.Contains("No usable body weight", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("Example only, not this patient's weight", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("example weight of 70 kg", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("for 150 mL", card.Detail, StringComparison.Ordinal); // no prediction for the volume
+        Assert.Contains("Example only, not this patient's weight", card.Report, StringComparison.Ordinal);
+        Assert.Contains("example weight of 70 kg", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("for 150 mL", card.Report, StringComparison.Ordinal); // no prediction for the volume
         Assert.DoesNotContain("predicted sodium change", card.Summary, StringComparison.Ordinal);
     }
 
@@ -81,8 +96,9 @@ public class InfusionPredictionCardProducerTests
     public void Produce_ImplausibleWeight_NotUsedAndSaid(double kg)
     {
         var card = Assert.Single(Cards(Woman55(Some.Sodium(118, 4), Some.Lab(Analyte.BodyWeight, kg, 3)), [Draft("nacl3", "sodium chloride 3%")]));
+        Assert.Equal(kg, RateFindings.Number(RateFindings.Of(card.Content!.Reasons, FindingKind.RateInfusionWeightImplausible), "weight"));
         Assert.Contains("No usable body weight", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("was not used", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("was not used", card.Report, StringComparison.Ordinal);
     }
 
     [Theory]
@@ -92,8 +108,10 @@ public class InfusionPredictionCardProducerTests
     public void Produce_NoUsableVolume_PerLitreOnly(double? millilitres)
     {
         var card = Assert.Single(Cards(Woman55(Some.Sodium(118, 4), Some.Lab(Analyte.BodyWeight, 60, 3)), [Draft("nacl3", "sodium chloride 3%", millilitres)]));
-        Assert.Contains("**+12.7 mmol/L**", card.Detail, StringComparison.Ordinal); // (513 − 118) / 31, Adrogué–Madias
-        Assert.Contains("only the per-litre figure", card.Detail, StringComparison.Ordinal);
+        var step = RateFindings.Of(card.Content!.Steps, FindingKind.RateInfusionStepOrder);
+        Assert.Equal(FindingKind.RateInfusionPredictionPerLitre, RateFindings.Phrase(step, "prediction").Kind);
+        Assert.Contains("**+12.7 mmol/L**", card.Report, StringComparison.Ordinal); // (513 − 118) / 31, Adrogué–Madias
+        Assert.Contains("only the per-litre figure", card.Report, StringComparison.Ordinal);
         Assert.Contains("per litre only", card.Summary, StringComparison.Ordinal);
     }
 
@@ -103,8 +121,10 @@ public class InfusionPredictionCardProducerTests
         var facts = Woman55(Some.Sodium(118, 4), Some.Lab(Analyte.BodyWeight, 60, 3));
         var drafts = new[] { Draft("a", "sodium chloride 3%"), Draft("b", "sodium chloride 0.9%", 1000) };
         var card = Assert.Single(Cards(facts, drafts, HookKind.OrderSelect, ["MedicationRequest/b"]));
-        Assert.Contains("MedicationRequest/b", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("MedicationRequest/a", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("MedicationRequest/b", card.ResourcesUsed);
+        Assert.DoesNotContain("MedicationRequest/a", card.ResourcesUsed);
+        Assert.Contains("MedicationRequest/b", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("MedicationRequest/a", card.Report, StringComparison.Ordinal);
         Assert.Empty(Cards(facts, drafts, HookKind.OrderSelect, ["MedicationRequest/other"]));
     }
 
@@ -124,16 +144,17 @@ public class InfusionPredictionCardProducerTests
             SetAside = [new SetAsideItem("Observation/na-x", "Sodium 302 mg/dL", "unit not accepted", Analyte.Sodium, Some.Now.AddHours(-2))],
         };
         var card = Assert.Single(Cards(facts, [Draft("nacl3", "sodium chloride 3%")]));
+        Assert.True(RateFindings.Has(card.Content!.Reasons, FindingKind.RateInfusionNoSerum));
         Assert.Contains("No usable sodium result", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("Observation/na-x", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("Per litre", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("Observation/na-x", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("Per litre", card.Report, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Produce_StaleSodium_Said()
     {
         var card = Assert.Single(Cards(Woman55(Some.Sodium(118, 80), Some.Lab(Analyte.BodyWeight, 60, 3)), [Draft("nacl3", "sodium chloride 3%")]));
-        Assert.Contains("80 h old", card.Detail, StringComparison.Ordinal); // stale after 72 h (SodiumReadingOptions default)
+        Assert.Contains("80 h old", card.Detail, StringComparison.Ordinal); // stale after 72 h (SodiumReadingOptions default): a caution
     }
 
     [Fact]
@@ -147,8 +168,9 @@ public class InfusionPredictionCardProducerTests
         var card = Assert.Single(Cards(Woman55(Some.Sodium(122, 4)), [vaptan]));
         Assert.Equal("rate-caution-order", card.Topic);
         Assert.Equal(CardIndicator.Warning, card.Indicator);
-        Assert.Contains("ATC C03XA01", card.Detail, StringComparison.Ordinal);
-        Assert.Contains("Allowance left now", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("ATC C03XA01", card.Report, StringComparison.Ordinal);
+        Assert.Contains("Allowance left now", card.Report, StringComparison.Ordinal);
+        Assert.True(RateFindings.Has(card.Content!.Steps, FindingKind.RateAllowanceLeft));
     }
 
     [Fact]

@@ -11,7 +11,7 @@ namespace CdsNatremia.Core.Tests.CorrectionRate;
 public class RateSpanTests
 {
     private static IReadOnlyList<CdsNatremia.Core.Cards.Card> RateCards(PatientFacts facts, RuleOptions? options = null)
-        => new CorrectionRateCardProducer().Produce(new DecisionContext(Some.Request(facts), options ?? new RuleOptions(), KnowledgeBase.Empty)).ToList();
+        => new DecisionEngine([new CorrectionRateCardProducer()], options ?? new RuleOptions(), KnowledgeBase.Empty).Decide(Some.Request(facts));
 
     private static RateWindow Day(PatientFacts facts, CorrectionRateOptions? options = null)
     {
@@ -54,7 +54,7 @@ public class RateSpanTests
     {
         // Nadir 110 at 53 h, 118 at 29 h, 127 now: the day-2 window has no result at its start, so its baseline is 29 h back.
         var card = Assert.Single(RateCards(Some.Facts(Some.Sodium(110, 54), Some.Sodium(118, 30), Some.Sodium(127, 1))));
-        Assert.Contains("rise measured over 29 h", card.Detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("**24-h window** (the 24 h ending", card.Detail, StringComparison.Ordinal);
+        Assert.Contains("rise measured over 29 h", card.Report, StringComparison.Ordinal);
+        Assert.DoesNotContain("**24-h window** (the 24 h ending", card.Report, StringComparison.Ordinal);
     }
 }

@@ -1,5 +1,6 @@
 using CdsNatremia.Core.CorrectionRate;
 using CdsNatremia.Core.Facts;
+using CdsNatremia.Core.Findings;
 using CdsNatremia.Core.Sodium;
 using CdsNatremia.Core.Tests.Support;
 
@@ -43,7 +44,7 @@ public class RateWindowsTests
     {
         var day = Day(Episode(Some.Sodium(110, 30), Some.Sodium(119, 6)));
         Assert.True(day.AnchoredAtNadir);
-        Assert.Equal("first 24 h after the nadir", day.LimitLabel);
+        Assert.Equal(FindingKind.RateLimitFirstDay, day.LimitLabel.Kind);
         Assert.Equal(10, day.Limit); // 9 < 10: within, though 9 ≥ 8 would be past a later-day limit
         Assert.Equal(0, day.HoursLeft); // window ended 6 h ago
     }
