@@ -8,7 +8,7 @@ namespace CdsNatremia.Core.Assessment;
 /// <summary>
 /// For a patient younger than <see cref="Sodium.SeverityOptions.AdultFromAgeYears"/> (default 18): the 2014 European
 /// guideline covers adults, so the card says first that its thresholds and correction limits may not apply and defers to
-/// paediatric protocols. The same caution goes into the cautions of every card (<see cref="CardFooter"/>). An unknown
+/// paediatric protocols. The engine puts the same caution first among the cautions of every card (<see cref="Engine.DecisionEngine"/>). An unknown
 /// birth date says nothing (adults are the usual case; the card does not guess an age).
 /// </summary>
 public sealed class PaediatricRule : IAssessmentRule

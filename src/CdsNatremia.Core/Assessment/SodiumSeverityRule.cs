@@ -51,7 +51,7 @@ public sealed class SodiumSeverityRule : IAssessmentRule
         if (context.Sodium.LatestIsStale)
         {
             card.Steps.Add(Finding.Of(FindingKind.SeverityStaleStep, Slot.Rounded("age", age, 1), Slot.Number("window", context.Sodium.StaleAfterHours)));
-            card.Cautions.Add(Finding.Of(FindingKind.SeverityStaleCaution, Slot.Rounded("age", age, 0)));
+            card.Cautions.Add(Finding.Of(FindingKind.SeverityStaleCaution, Slot.Time("age", latest.EffectiveAt, TimeStyle.Age)));
             card.Suggest(LabOrders.AsSuggestion(LabOrders.SerumSodium(LabOrders.Why(FindingKind.SeverityStaleOrder)), recommended: true));
             card.OfferSummaryAction(50, Finding.Of(FindingKind.SeverityStaleAction));
 

@@ -59,12 +59,6 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
             Slot.Phrase("label", window.LimitLabel)).RestingOn(peak.Reference, window.Baseline.Reference);
     }
 
-    /// <summary>
-    /// TRANSITIONAL, for the prescribing warning until it builds findings: <see cref="Relowering"/> worded by the catalogue.
-    /// </summary>
-    public static string ReloweringText(RateWindow window, TimeDisplay display)
-        => PhraseCatalogue.Default.Render(Relowering(window), Guard.NotNull(display, nameof(display)));
-
     /// <inheritdoc />
     public IEnumerable<Card> Produce(DecisionContext context)
     {

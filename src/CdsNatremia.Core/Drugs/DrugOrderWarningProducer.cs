@@ -134,7 +134,7 @@ public sealed class DrugOrderWarningProducer : ICardProducer
         if (relowering is not null)
         {
             reasons.Add(Finding.Of(FindingKind.DrugOrderReasonRelowering).Weighted(Weights.Culprit));
-            steps.Add(Relowering(relowering, context));
+            steps.Add(RateCautionOrderCardProducer.Relowering(relowering).RestingOn(relowering.Baseline.Reference));
         }
 
         var sameDrug = existing.Where(e => matches.Any(m => m.Set.Id == e.Match.Set.Id
@@ -356,13 +356,4 @@ public sealed class DrugOrderWarningProducer : ICardProducer
                     .With(Certainty.Unknown);
         }
     }
-
-    /// <summary>
-    /// The over-correction the chart shows, for a desmopressin order: the rate card's own sentence
-    /// (<see cref="RateCautionOrderCardProducer.ReloweringText"/>), so both cards say the same.
-    /// TRANSITIONAL: carried as legacy text until the rate card gives it as a finding.
-    /// </summary>
-    private static Finding Relowering(RateWindow window, DecisionContext context)
-        => Finding.Of(FindingKind.LegacyText, Slot.Verbatim("text", RateCautionOrderCardProducer.ReloweringText(window, context.Display)))
-            .RestingOn(window.Baseline.Reference);
 }

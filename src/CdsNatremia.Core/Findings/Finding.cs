@@ -23,12 +23,6 @@ public sealed record Finding
     /// <summary>How much the finding matters to the short card: higher first (0 = report only unless nothing else).</summary>
     public int Weight { get; init; }
 
-    /// <summary>
-    /// TRANSITIONAL: wraps text a rule still words itself, so rules can move to findings one at a time. Removed when the
-    /// last rule has moved (the compiler then finds any left).
-    /// </summary>
-    public static implicit operator Finding(string legacyText) => Of(FindingKind.LegacyText, Slot.Verbatim("text", legacyText));
-
     /// <summary>A finding of <paramref name="kind"/> with <paramref name="slots"/>.</summary>
     public static Finding Of(string kind, params Slot[] slots) => new() { Kind = kind, Slots = slots };
 

@@ -7,9 +7,6 @@ namespace CdsNatremia.Core.Findings;
 /// </summary>
 public static partial class FindingKind
 {
-    /// <summary>TRANSITIONAL: text still worded by a rule (see <see cref="Finding"/>'s conversion).</summary>
-    public const string LegacyText = "legacy.text";
-
     /// <summary>A child: adult thresholds and limits may not apply (every card, full wording).</summary>
     public const string PaediatricCaution = "caution.paediatric";
 

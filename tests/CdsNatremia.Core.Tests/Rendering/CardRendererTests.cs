@@ -65,8 +65,7 @@ public class CardRendererTests
             ],
         };
         var detail = CardRenderer.Detail(Content([]), new RenderContext(facts, TimeDisplay.Utc(Some.Now)));
-        Assert.Contains("1 item(s) that could not be read or trusted", detail, StringComparison.Ordinal);
-        Assert.Contains("1 resource(s) about another patient, ignored", detail, StringComparison.Ordinal);
+        Assert.Contains("Not used (1 unreadable or untrusted; 1 about another patient): see the full report.", detail, StringComparison.Ordinal);
         Assert.DoesNotContain("131", detail, StringComparison.Ordinal);
     }
 }

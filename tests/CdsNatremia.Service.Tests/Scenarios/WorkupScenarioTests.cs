@@ -32,7 +32,7 @@ public partial class WorkupScenarioTests(NatremiaFactory factory) : IClassFixtur
             Assert.True(detail.Contains(text, StringComparison.Ordinal), $"{id}: missing \"{text}\" in\n{detail}");
         }
 
-        Assert.Contains("Advisory only", detail, StringComparison.Ordinal); // cautions (CardFooter)
+        Assert.Contains("Advisory only", detail, StringComparison.Ordinal); // the standing caution line (CardRenderer)
     }
 
     [Fact]
