@@ -23,14 +23,18 @@ internal static class FindingJson
             json["evidence"] = new JsonArray(finding.Evidence.Distinct(StringComparer.Ordinal).Select(e => (JsonNode)JsonValue.Create(e)!).ToArray());
         }
 
-        if (finding.Slots.Count > 0)
+        // CDS Hooks forbids empty values ("", [], {}): a slot that words an absent clause (an empty text) is left out.
+        var values = new JsonObject();
+        foreach (var slot in finding.Slots)
         {
-            var values = new JsonObject();
-            foreach (var slot in finding.Slots)
+            if (Value(slot.Value) is { } node)
             {
-                values[slot.Name] = Value(slot.Value);
+                values[slot.Name] = node;
             }
+        }
 
+        if (values.Count > 0)
+        {
             json["values"] = values;
         }
 
@@ -40,12 +44,13 @@ internal static class FindingJson
     private static JsonNode? Value(SlotValue value) => value switch
     {
         NumberValue n => JsonValue.Create(n.Decimals is { } d ? Math.Round(n.Value, d, MidpointRounding.AwayFromZero) : n.Value),
+        TextValue { Value.Length: 0 } => null,
         TextValue t => JsonValue.Create(t.Value),
         TimeValue t => JsonValue.Create(t.Value.ToString("O", CultureInfo.InvariantCulture)),
         DurationValue d => new JsonObject { ["hours"] = d.Hours },
         ResultValue r => new JsonObject { ["reference"] = r.Result.Reference, ["value"] = r.Result.Value, ["unit"] = r.Result.Unit },
         PhraseValue p => Of(p.Finding),
-        ListValue l => new JsonArray(l.Values.Select(Value).ToArray()),
+        ListValue l when l.Values.Select(Value).OfType<JsonNode>().ToArray() is { Length: > 0 } items => new JsonArray(items),
         _ => null,
     };
 
