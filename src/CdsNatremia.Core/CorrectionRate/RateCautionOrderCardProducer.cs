@@ -48,9 +48,6 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
     /// <inheritdoc />
     public string RuleId => "sodium.rate-caution-order";
 
-    /// <inheritdoc />
-    public bool Handles(HookKind hook) => hook is HookKind.OrderSelect or HookKind.OrderSign;
-
     /// <summary>The sentence for a chart that shows over-correction, naming the window and its peak.</summary>
     public static string ReloweringText(RateWindow window, TimeDisplay display)
     {
