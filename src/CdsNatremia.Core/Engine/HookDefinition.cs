@@ -70,6 +70,12 @@ public sealed record HookDefinition
     /// </summary>
     public string? ArrivedResultsField { get; init; }
 
+    /// <summary>
+    /// True for a routine chart opening: a card offers at most <see cref="Cards.SuggestionPolicy.MaxOnChartOpening"/>
+    /// suggestions, and advice a clinician already answered does not interrupt again (docs/audit.md).
+    /// </summary>
+    public bool ChartOpening { get; init; }
+
     /// <summary>The hook name as sent, with <paramref name="domain"/> in front for an organisation-specific hook.</summary>
     public string NameIn(string domain) => OrganisationSpecific ? domain + "." + Hook : Hook;
 

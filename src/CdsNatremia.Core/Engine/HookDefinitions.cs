@@ -46,6 +46,7 @@ public static class HookDefinitions
         Prefetch = AllKeys,
         RequiredPrefetch = Required,
         Producers = [Assessment, CorrectionRate],
+        ChartOpening = true,
     };
 
     /// <summary>The organisation-specific result hook: new laboratory results arrived (docs/result-hook.md).</summary>
