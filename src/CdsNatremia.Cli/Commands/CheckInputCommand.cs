@@ -1,5 +1,6 @@
 using System.ComponentModel;
 using CdsNatremia.Cli.InputCheck;
+using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Sodium;
 using CdsNatremia.Fhir.Knowledge;
 using CdsNatremia.Service.Hooks;

@@ -25,9 +25,6 @@ public sealed class SodiumAssessmentCardProducer : ICardProducer
     public string RuleId => "sodium.assessment";
 
     /// <inheritdoc />
-    public bool Handles(HookKind hook) => hook is HookKind.PatientView or HookKind.ResultArrive;
-
-    /// <inheritdoc />
     public IEnumerable<Card> Produce(DecisionContext context)
     {
         Guard.NotNull(context, nameof(context));

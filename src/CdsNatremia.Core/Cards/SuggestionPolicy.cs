@@ -59,7 +59,7 @@ public static class SuggestionPolicy
             }
         }
 
-        if (hook == HookKind.PatientView && ordered.Count > MaxOnChartOpening)
+        if (HookDefinitions.Of(hook).ChartOpening && ordered.Count > MaxOnChartOpening)
         {
             ordered = ordered.Take(MaxOnChartOpening).ToList();
         }

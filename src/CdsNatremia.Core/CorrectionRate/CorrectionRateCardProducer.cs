@@ -22,9 +22,6 @@ public sealed class CorrectionRateCardProducer : ICardProducer
     public string RuleId => "sodium.correction-rate";
 
     /// <inheritdoc />
-    public bool Handles(HookKind hook) => hook is HookKind.PatientView or HookKind.ResultArrive;
-
-    /// <inheritdoc />
     public IEnumerable<Card> Produce(DecisionContext context)
     {
         Guard.NotNull(context, nameof(context));

@@ -1,4 +1,5 @@
 using System.ComponentModel.DataAnnotations;
+using CdsNatremia.Core.Engine;
 
 namespace CdsNatremia.Core.CorrectionRate;
 
@@ -13,7 +14,7 @@ namespace CdsNatremia.Core.CorrectionRate;
 /// separate one and the reference sheet names the panel's high-risk factors.
 /// </para>
 /// </summary>
-public sealed class CorrectionRateOptions
+public sealed class CorrectionRateOptions : IValidatableObject
 {
     /// <summary>European 2014 first-24-h limit, mmol/L (Spasovski et al. 2014, reference sheet: secondary).</summary>
     public const double EuropeanFirstDay = 10;
@@ -34,6 +35,7 @@ public sealed class CorrectionRateOptions
     public const double UsPanelMinimumGoal = 4;
 
     /// <summary>Which limit set to use. Default <see cref="CorrectionRatePreset.European2014"/>.</summary>
+    [EnumDataType(typeof(CorrectionRatePreset))]
     public CorrectionRatePreset Preset { get; set; } = CorrectionRatePreset.European2014;
 
     /// <summary>Custom preset only: largest rise in the first 24 h, mmol/L. Default 10 (European 2014).</summary>
@@ -143,4 +145,15 @@ public sealed class CorrectionRateOptions
             MinimumDailyGoalHighRisk,
             CustomSource),
     };
+
+    /// <summary>Checks across settings: no high-risk limit above the usual one, no 24-h limit above the 48-h limit.</summary>
+    public IEnumerable<ValidationResult> Validate(ValidationContext validationContext)
+    {
+        var limits = Resolve();
+        if (!(limits.HighRiskDay <= Math.Min(limits.FirstDay, limits.LaterDay) && limits.HighRiskTwoDays <= limits.TwoDays
+            && Math.Max(limits.FirstDay, limits.LaterDay) <= limits.TwoDays))
+        {
+            yield return new ValidationResult($"{OptionsPath.Of(validationContext)}: high-risk limits must not exceed the usual ones, and no 24-h limit may exceed the 48-h limit.", [nameof(HighRiskDayLimit)]);
+        }
+    }
 }

@@ -4,9 +4,10 @@ using CdsNatremia.Core.Facts;
 namespace CdsNatremia.Core.CorrectionRate;
 
 /// <summary>
-/// Which draft orders an order hook speaks about: on order-select only the selected ones (a selection is a reference
-/// such as "MedicationRequest/draft-nacl3", matched to the order's reference, to its id, or as the end of an absolute
-/// URL); on order-sign all of them. The one rule for every producer that speaks about draft orders.
+/// Which draft orders an order hook speaks about, as the hook's definition says (<see cref="HookDefinition.DraftOrders"/>):
+/// on order-select only the selected ones (a selection is a reference such as "MedicationRequest/draft-nacl3", matched to
+/// the order's reference, to its bare id, or as the end of an absolute URL); on order-sign all of them. The one rule for
+/// every producer that speaks about draft orders. A hook without draft orders has none to consider.
 /// </summary>
 public static class DraftOrders
 {
@@ -14,12 +15,9 @@ public static class DraftOrders
     public static IReadOnlyList<MedicationFact> Considered(DecisionRequest request)
     {
         Guard.NotNull(request, nameof(request));
-        if (request.Hook != HookKind.OrderSelect)
-        {
-            return request.DraftOrders;
-        }
-
-        return request.DraftOrders.Where(o => IsConsidered(request, o)).ToList();
+        return HookDefinitions.Of(request.Hook).DraftOrders == DraftOrderScope.Selected
+            ? request.DraftOrders.Where(o => IsConsidered(request, o)).ToList()
+            : request.DraftOrders;
     }
 
     /// <summary>True when the hook speaks about <paramref name="order"/>: any draft on order-sign, a selected one on order-select.</summary>
@@ -27,10 +25,11 @@ public static class DraftOrders
     {
         Guard.NotNull(request, nameof(request));
         Guard.NotNull(order, nameof(order));
-        return request.Hook != HookKind.OrderSelect || request.SelectedOrders.Any(s => IsSelected(s, order));
+        return HookDefinitions.Of(request.Hook).DraftOrders != DraftOrderScope.Selected || request.SelectedOrders.Any(s => Names(s, order));
     }
 
-    private static bool IsSelected(string selection, MedicationFact order)
+    /// <summary>True when <paramref name="selection"/> names <paramref name="order"/> (relative reference, bare id or absolute URL).</summary>
+    private static bool Names(string selection, MedicationFact order)
         => string.Equals(selection, order.Reference, StringComparison.Ordinal)
             || string.Equals(selection, order.ResourceId, StringComparison.Ordinal)
             || selection.EndsWith("/" + order.Reference, StringComparison.Ordinal);

@@ -29,9 +29,6 @@ public sealed class InfusionPredictionCardProducer : ICardProducer
     public string RuleId => "sodium.infusion-prediction";
 
     /// <inheritdoc />
-    public bool Handles(HookKind hook) => hook is HookKind.OrderSelect or HookKind.OrderSign;
-
-    /// <inheritdoc />
     public IEnumerable<Card> Produce(DecisionContext context)
     {
         Guard.NotNull(context, nameof(context));

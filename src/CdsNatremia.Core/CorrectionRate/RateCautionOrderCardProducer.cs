@@ -41,9 +41,6 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
     /// <inheritdoc />
     public string RuleId => "sodium.rate-caution-order";
 
-    /// <inheritdoc />
-    public bool Handles(HookKind hook) => hook is HookKind.OrderSelect or HookKind.OrderSign;
-
     /// <summary>The finding for a chart that shows over-correction, naming the window and its peak.</summary>
     public static Finding Relowering(RateWindow window)
     {

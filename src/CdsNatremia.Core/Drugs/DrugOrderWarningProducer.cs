@@ -30,9 +30,6 @@ public sealed class DrugOrderWarningProducer : ICardProducer
     public string RuleId => "drug.order-warning";
 
     /// <inheritdoc />
-    public bool Handles(HookKind hook) => hook is HookKind.OrderSelect or HookKind.OrderSign;
-
-    /// <inheritdoc />
     public IEnumerable<Card> Produce(DecisionContext context)
     {
         Guard.NotNull(context, nameof(context));

@@ -6,7 +6,7 @@ using CdsNatremia.Core.Knowledge;
 namespace CdsNatremia.Core.Engine;
 
 /// <summary>
-/// Runs every card producer that handles the hook, in registration order, and returns their cards, most urgent first:
+/// Runs the card producers the hook's definition names (<see cref="HookDefinition.Producers"/>), in registration order, and returns their cards, most urgent first:
 /// critical before warning before info; among cards of the same urgency, a safety card (correction rate, order warning)
 /// before the work-up card, so a critical correction-rate card is never preceded by the work-up. Ties keep registration
 /// order. Pure and thread-safe: it holds only immutable options and knowledge.
@@ -34,8 +34,9 @@ public sealed class DecisionEngine
     public IReadOnlyList<Card> Decide(DecisionRequest request)
     {
         var context = new DecisionContext(request, _options, _knowledge, _displayZone);
+        var hook = HookDefinitions.Of(request.Hook);
         return _producers
-            .Where(p => p.Handles(request.Hook))
+            .Where(hook.Runs)
             .SelectMany(p => p.Produce(context))
             .Select((card, index) => (card, index))
             .OrderByDescending(x => x.card.Indicator)

@@ -1,3 +1,4 @@
+using System.ComponentModel.DataAnnotations;
 using CdsNatremia.Core.Cards;
 
 namespace CdsNatremia.Core.Engine;
@@ -6,11 +7,14 @@ namespace CdsNatremia.Core.Engine;
 public sealed class IndicatorOptions
 {
     /// <summary>Mild hyponatremia. Default info.</summary>
+    [EnumDataType(typeof(CardIndicator))]
     public CardIndicator Mild { get; set; } = CardIndicator.Info;
 
     /// <summary>Moderate hyponatremia. Default warning.</summary>
+    [EnumDataType(typeof(CardIndicator))]
     public CardIndicator Moderate { get; set; } = CardIndicator.Warning;
 
     /// <summary>Profound (severe) hyponatremia. Default critical.</summary>
+    [EnumDataType(typeof(CardIndicator))]
     public CardIndicator Profound { get; set; } = CardIndicator.Critical;
 }

@@ -1,4 +1,5 @@
 using System.ComponentModel.DataAnnotations;
+using CdsNatremia.Core.Engine;
 
 namespace CdsNatremia.Core.Sodium;
 
@@ -7,9 +8,10 @@ namespace CdsNatremia.Core.Sodium;
 /// with the defaults, 125.0 is moderate and 124.9 is profound; 135.0 is normal.
 /// Unless <see cref="Preset"/> is <see cref="SeverityPreset.Custom"/>, the preset's values replace the numbers below.
 /// </summary>
-public sealed class SeverityOptions
+public sealed class SeverityOptions : IValidatableObject
 {
     /// <summary>Which threshold set to use. Default <see cref="SeverityPreset.European2014"/>.</summary>
+    [EnumDataType(typeof(SeverityPreset))]
     public SeverityPreset Preset { get; set; } = SeverityPreset.European2014;
 
     /// <summary>
@@ -54,4 +56,14 @@ public sealed class SeverityOptions
             "older teaching cut-off: severe below 120 mmol/L (common practice)"),
         _ => new SeverityThresholds(NormalFrom, NormalTo, MildFrom, ModerateFrom, LowestBandName, Source),
     };
+
+    /// <summary>Checks across settings: the resolved thresholds must rise.</summary>
+    public IEnumerable<ValidationResult> Validate(ValidationContext validationContext)
+    {
+        var t = Resolve();
+        if (!(t.ModerateFrom < t.MildFrom && t.MildFrom < t.NormalFrom && t.NormalFrom < t.NormalTo))
+        {
+            yield return new ValidationResult($"{OptionsPath.Of(validationContext)}: thresholds must rise: ModerateFrom < MildFrom < NormalFrom < NormalTo.", [nameof(ModerateFrom)]);
+        }
+    }
 }

@@ -1,5 +1,6 @@
 using System.ComponentModel.DataAnnotations;
 using CdsNatremia.Core.Cards;
+using CdsNatremia.Core.Engine;
 
 namespace CdsNatremia.Core.Workup;
 
@@ -7,7 +8,7 @@ namespace CdsNatremia.Core.Workup;
 /// Thresholds of the hyponatremia work-up rules (tonicity, glucose, onset, urine studies, SIADH checklist, missing tests).
 /// Each default names its source with the reference sheet's status word. Bound from "Natremia:Rules:Workup".
 /// </summary>
-public sealed class WorkupOptions
+public sealed class WorkupOptions : IValidatableObject
 {
     /// <summary>
     /// Effective serum osmolality below this is hypotonic, mOsm/kg. Default 275: "hypotonic serum: effective osmolality
@@ -46,6 +47,7 @@ public sealed class WorkupOptions
     public double HighGlucoseFrom { get; set; } = 11.1;
 
     /// <summary>Which correction the summary uses (both are always shown). Default Hillier (reference sheet: verified).</summary>
+    [EnumDataType(typeof(GlucoseCorrectionMethod))]
     public GlucoseCorrectionMethod GlucoseCorrection { get; set; } = GlucoseCorrectionMethod.Hillier;
 
     /// <summary>
@@ -70,6 +72,7 @@ public sealed class WorkupOptions
     public double AcuteWithinHours { get; set; } = 48;
 
     /// <summary>The card indicator is raised at least to this for acute hyponatremia. Default warning (common practice: brain oedema risk is higher).</summary>
+    [EnumDataType(typeof(CardIndicator))]
     public CardIndicator AcuteIndicator { get; set; } = CardIndicator.Warning;
 
     /// <summary>
@@ -132,4 +135,23 @@ public sealed class WorkupOptions
     /// </summary>
     [Range(20, 600)]
     public double CortisolNormalFrom { get; set; } = 138;
+
+    /// <summary>Checks across settings: the tonicity edges, the TSH range and the Furst bands must not overlap.</summary>
+    public IEnumerable<ValidationResult> Validate(ValidationContext validationContext)
+    {
+        if (HypotonicBelow >= HypertonicAbove)
+        {
+            yield return new ValidationResult($"{OptionsPath.Of(validationContext)}: HypotonicBelow must be below HypertonicAbove.", [nameof(HypotonicBelow)]);
+        }
+
+        if (ThyrotropinNormalFrom >= ThyrotropinNormalTo)
+        {
+            yield return new ValidationResult($"{OptionsPath.Of(validationContext)}: ThyrotropinNormalFrom must be below ThyrotropinNormalTo.", [nameof(ThyrotropinNormalFrom)]);
+        }
+
+        if (FurstStricterRestrictionFrom > FurstRestrictionUnlikelyAbove)
+        {
+            yield return new ValidationResult($"{OptionsPath.Of(validationContext)}: FurstStricterRestrictionFrom must not exceed FurstRestrictionUnlikelyAbove.", [nameof(FurstStricterRestrictionFrom)]);
+        }
+    }
 }

@@ -17,10 +17,18 @@ public sealed class BundleReader
     /// <summary>Creates a reader over a shared parser.</summary>
     public BundleReader(ResourceParser parser) => _parser = parser ?? throw new ArgumentNullException(nameof(parser));
 
-    /// <summary>Reads one value.</summary>
+    /// <summary>
+    /// Reads one value: a prefetch key, a fetched query, or a hook context field (<paramref name="key"/> is then the field
+    /// name). Problems name where the value came from: "prefetch 'sodium'", "FHIR server query 'sodium'", "context 'draftOrders'".
+    /// </summary>
     public PrefetchValue Read(string key, JsonElement value, DataOrigin origin)
     {
-        var source = origin == DataOrigin.FhirServer ? $"FHIR server query '{key}'" : $"prefetch '{key}'";
+        var source = origin switch
+        {
+            DataOrigin.FhirServer => $"FHIR server query '{key}'",
+            DataOrigin.Context => $"context '{key}'",
+            _ => $"prefetch '{key}'",
+        };
         if (value.ValueKind is JsonValueKind.Null or JsonValueKind.Undefined)
         {
             return new PrefetchValue(key, PrefetchValueKind.Empty, [], []);

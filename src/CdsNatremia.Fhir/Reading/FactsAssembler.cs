@@ -22,7 +22,7 @@ public sealed class FactsAssembler
     /// <param name="patientId">The patient in the hook context; data about anyone else is set aside.</param>
     /// <param name="now">Assessment time, for future-dated results.</param>
     /// <param name="values">Prefetch (or fetched) values, one per key.</param>
-    /// <param name="contextResources">Resources from the hook context (new results, draft orders).</param>
+    /// <param name="contextResources">Resources from the hook context, each with its <see cref="ParsedResource.Role"/> (new results, draft orders).</param>
     /// <param name="contextUnreadable">Observation entries of the hook context that did not parse.</param>
     public AssembledFacts Assemble(
         string patientId,
@@ -78,7 +78,7 @@ public sealed class FactsAssembler
 
         void ReadOne(ParsedResource item)
         {
-            var isDraftOrder = item.Origin == DataOrigin.Context && item.Source.Contains("draftOrders", StringComparison.Ordinal);
+            var isDraftOrder = item.Role == ContextRole.DraftOrder;
             switch (item.Resource)
             {
                 case Observation observation when _observations.TryRead(observation, patientId, now, item.Origin, out var result, out var aside):

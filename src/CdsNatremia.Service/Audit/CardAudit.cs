@@ -20,6 +20,7 @@ public sealed class CardAudit
     private readonly IAuditStore _store;
     private readonly PatientPseudonymizer _pseudonymizer;
     private readonly LoadedKnowledge _knowledge;
+    private readonly HashSet<string> _topics;
 
     /// <summary>Creates the recorder.</summary>
     public CardAudit(IAuditStore store, PatientPseudonymizer pseudonymizer, LoadedKnowledge knowledge)
@@ -27,6 +28,7 @@ public sealed class CardAudit
         _store = store;
         _pseudonymizer = pseudonymizer;
         _knowledge = knowledge;
+        _topics = CardTopics.All(knowledge.Base).Select(t => t.Code).ToHashSet(StringComparer.Ordinal);
     }
 
     /// <summary>The service's software version (assembly informational version), as audit records carry it.</summary>
@@ -84,6 +86,6 @@ public sealed class CardAudit
             activity?.SetStatus(succeeded ? ActivityStatusCode.Ok : ActivityStatusCode.Error);
         }
 
-        NatremiaTelemetry.RecordCards(issued.Select(i => i.Card));
+        NatremiaTelemetry.RecordCards(issued.Select(i => i.Card), _topics);
     }
 }

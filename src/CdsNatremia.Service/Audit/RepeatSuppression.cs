@@ -35,7 +35,7 @@ public sealed class RepeatSuppression
     {
         ArgumentNullException.ThrowIfNull(service);
         ArgumentNullException.ThrowIfNull(cards);
-        if (_hours <= 0 || cards.Count == 0 || !string.Equals(service.Hook, "patient-view", StringComparison.Ordinal))
+        if (_hours <= 0 || cards.Count == 0 || !service.Definition.ChartOpening)
         {
             return cards;
         }

@@ -1,4 +1,5 @@
 using System.Text.Json.Nodes;
+using CdsNatremia.Core.Engine;
 using CdsNatremia.Service.Hooks;
 using CdsNatremia.Service.Security;
 using Microsoft.AspNetCore.Http.HttpResults;

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text.Json;
+using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Fhir.Reading;
 using CdsNatremia.Service.Hooks;

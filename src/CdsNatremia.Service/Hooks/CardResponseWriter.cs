@@ -1,5 +1,7 @@
 using System.Text.Json.Nodes;
 using CdsNatremia.Core.Cards;
+using CdsNatremia.Core.Knowledge;
+using CdsNatremia.Fhir.Knowledge;
 using CdsNatremia.Fhir.Writing;
 using CdsNatremia.Service.Configuration;
 using Microsoft.Extensions.Options;
@@ -12,13 +14,17 @@ namespace CdsNatremia.Service.Hooks;
 /// </summary>
 public sealed class CardResponseWriter
 {
-    /// <summary>Our card-topic CodeSystem (profiles/codesystems/card-topic.json).</summary>
-    public const string TopicSystem = "https://cdsnatremia.example.org/fhir/CodeSystem/card-topic";
-
     private readonly NatremiaServiceOptions _options;
+    private readonly KnowledgeBase _knowledge;
 
-    /// <summary>Creates the writer.</summary>
-    public CardResponseWriter(IOptions<NatremiaServiceOptions> options) => _options = options.Value;
+    /// <summary>Creates the writer; topic systems and displays come from the loaded card-topic CodeSystem.</summary>
+    public CardResponseWriter(IOptions<NatremiaServiceOptions> options, LoadedKnowledge knowledge)
+    {
+        ArgumentNullException.ThrowIfNull(options);
+        ArgumentNullException.ThrowIfNull(knowledge);
+        _options = options.Value;
+        _knowledge = knowledge.Base;
+    }
 
     /// <summary>Builds the response body and the record of what was issued.</summary>
     public (JsonObject Body, IReadOnlyList<IssuedCard> Issued) Write(IReadOnlyList<Card> cards, string patientId, DateTimeOffset now)
@@ -48,7 +54,7 @@ public sealed class CardResponseWriter
                 ["source"] = new JsonObject
                 {
                     ["label"] = _options.SourceLabel,
-                    ["topic"] = new JsonObject { ["system"] = TopicSystem, ["code"] = card.Topic, ["display"] = TopicDisplay(card.Topic) },
+                    ["topic"] = Topic(card.Topic),
                 },
             };
             if (card.Suggestions.Count > 0)
@@ -152,14 +158,24 @@ public sealed class CardResponseWriter
         _ => "info",
     };
 
-    private static string TopicDisplay(string topic) => topic switch
+    /// <summary>
+    /// The card's topic as a Coding from the loaded card-topic CodeSystem. A code the CodeSystem does not hold (a test
+    /// keeps every producer's topic in it) is still sent with the CodeSystem's url, without a display: never invented here.
+    /// </summary>
+    private JsonObject Topic(string code)
     {
-        "sodium-assessment" => "Sodium assessment",
-        "correction-rate" => "Correction rate",
-        "infusion-prediction" => "Infusion prediction",
-        "drug-cause" => "Drug cause",
-        "drug-order-warning" => "Drug order warning",
-        "rate-caution-order" => "Rate caution on an order",
-        _ => topic,
-    };
+        if (CardTopics.Find(code, _knowledge) is { } topic)
+        {
+            var coding = new JsonObject { ["system"] = topic.System, ["code"] = topic.Code };
+            if (!string.IsNullOrEmpty(topic.Display))
+            {
+                coding["display"] = topic.Display;
+            }
+
+            return coding;
+        }
+
+        var system = CardTopics.All(_knowledge).Select(t => t.System).FirstOrDefault();
+        return system is null ? new JsonObject { ["code"] = code } : new JsonObject { ["system"] = system, ["code"] = code };
+    }
 }

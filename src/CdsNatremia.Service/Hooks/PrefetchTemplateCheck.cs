@@ -1,4 +1,5 @@
 using System.Text.Json;
+using CdsNatremia.Core.Engine;
 
 namespace CdsNatremia.Service.Hooks;
 

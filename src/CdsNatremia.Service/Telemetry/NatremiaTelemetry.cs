@@ -54,25 +54,23 @@ public static class NatremiaTelemetry
     /// <summary>Fetch outcomes, the only values the <c>outcome</c> label of <c>natremia.fhir.fetches</c> takes.</summary>
     public static IReadOnlyList<string> FetchOutcomes { get; } = ["fetched", "timed out", "circuit open", "refused", "failed"];
 
-    /// <summary>The card topics the service issues (the values the topic label takes, besides <see cref="Other"/>).</summary>
-    public static IReadOnlySet<string> CardTopics { get; } = new HashSet<string>(StringComparer.Ordinal)
-    {
-        "sodium-assessment", "correction-rate", "infusion-prediction", "rate-caution-order", "drug-order-warning",
-    };
-
     private static string Version => typeof(NatremiaTelemetry).Assembly.GetName().Version?.ToString() ?? "0.0.0";
 
     /// <summary>Counts one answer of a CDS service. <paramref name="serviceId"/> must already be a catalogue id or <see cref="Other"/>.</summary>
     public static void RecordAnswer(string serviceId, string kind, int status)
         => Answers.Add(1, new TagList { { "natremia.service", serviceId }, { "natremia.call", kind }, { "http.response.status_code", status } });
 
-    /// <summary>Counts the cards of one answer, by topic and indicator (both from the service's own fixed sets).</summary>
-    public static void RecordCards(IEnumerable<Card> cards)
+    /// <summary>
+    /// Counts the cards of one answer, by topic and indicator, both from fixed sets: a topic is its code when the loaded
+    /// card-topic CodeSystem holds it (<paramref name="topics"/>, <see cref="CardTopics"/>), else <see cref="Other"/>.
+    /// </summary>
+    public static void RecordCards(IEnumerable<Card> cards, IReadOnlySet<string> topics)
     {
         ArgumentNullException.ThrowIfNull(cards);
+        ArgumentNullException.ThrowIfNull(topics);
         foreach (var card in cards)
         {
-            Cards.Add(1, new TagList { { "natremia.card.topic", TopicLabel(card.Topic) }, { "natremia.card.indicator", IndicatorLabel(card.Indicator) } });
+            Cards.Add(1, new TagList { { "natremia.card.topic", TopicLabel(card.Topic, topics) }, { "natremia.card.indicator", IndicatorLabel(card.Indicator) } });
         }
     }
 
@@ -125,5 +123,5 @@ public static class NatremiaTelemetry
     };
 
     // Topic codes are the service's own constants; anything else is folded so the label set stays bounded.
-    private static string TopicLabel(string? topic) => topic is not null && CardTopics.Contains(topic) ? topic : Other;
+    private static string TopicLabel(string? topic, IReadOnlySet<string> topics) => topic is not null && topics.Contains(topic) ? topic : Other;
 }

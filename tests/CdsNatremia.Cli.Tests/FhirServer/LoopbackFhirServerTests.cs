@@ -4,6 +4,7 @@ using System.Text.Json.Nodes;
 using CdsNatremia.Cli.FhirServer;
 using CdsNatremia.Cli.Prefetch;
 using CdsNatremia.Cli.Tests.Support;
+using CdsNatremia.Core.Engine;
 using CdsNatremia.Service.Hooks;
 
 namespace CdsNatremia.Cli.Tests.FhirServer;

@@ -1,4 +1,5 @@
 using CdsNatremia.Cli.InputCheck;
+using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Sodium;
 using CdsNatremia.Fhir.Knowledge;
 using CdsNatremia.Scenarios;

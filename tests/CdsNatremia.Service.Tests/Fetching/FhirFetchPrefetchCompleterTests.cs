@@ -1,4 +1,5 @@
 using System.Text.Json.Nodes;
+using CdsNatremia.Core.Engine;
 using CdsNatremia.Core.Facts;
 using CdsNatremia.Fhir.Reading;
 using CdsNatremia.Service.Hooks;

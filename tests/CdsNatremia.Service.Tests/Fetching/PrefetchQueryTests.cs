@@ -1,4 +1,5 @@
 using System.Text.Json;
+using CdsNatremia.Core.Engine;
 using CdsNatremia.Service.Fetching;
 using CdsNatremia.Service.Hooks;
 

@@ -4,6 +4,8 @@ using System.Net;
 using System.Net.Http.Headers;
 using System.Text;
 using System.Text.Json.Nodes;
+using CdsNatremia.Core.Cards;
+using CdsNatremia.Fhir.Knowledge;
 using CdsNatremia.Scenarios;
 using CdsNatremia.Service.Telemetry;
 using CdsNatremia.Service.Tests.Support;
@@ -139,7 +141,7 @@ public sealed class TelemetryPrivacyTests : IDisposable
         {
             ["natremia.service"] = services,
             ["natremia.call"] = new HashSet<string>(StringComparer.Ordinal) { "hook", "feedback", NatremiaTelemetry.Other },
-            ["natremia.card.topic"] = new HashSet<string>(NatremiaTelemetry.CardTopics.Append(NatremiaTelemetry.Other), StringComparer.Ordinal),
+            ["natremia.card.topic"] = new HashSet<string>(CardTopics.All(_host.Services.GetRequiredService<LoadedKnowledge>().Base).Select(t => t.Code).Append(NatremiaTelemetry.Other), StringComparer.Ordinal),
             ["natremia.card.indicator"] = new HashSet<string>(StringComparer.Ordinal) { "info", "warning", "critical" },
             ["natremia.reason"] = new HashSet<string>(SetAsideReasons.Classes, StringComparer.Ordinal),
             ["outcome"] = new HashSet<string>(NatremiaTelemetry.FetchOutcomes.Append("ok").Append("failed"), StringComparer.Ordinal),

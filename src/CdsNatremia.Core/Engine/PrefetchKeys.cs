@@ -1,4 +1,4 @@
-namespace CdsNatremia.Service.Hooks;
+namespace CdsNatremia.Core.Engine;
 
 /// <summary>
 /// The prefetch keys the services declare in discovery, and the FHIR query template of each. Tokens are CDS Hooks

@@ -1,4 +1,4 @@
-namespace CdsNatremia.Service.Hooks;
+namespace CdsNatremia.Core.Engine;
 
 /// <summary>The JSON shape a context field must have.</summary>
 public enum ContextFieldKind
