@@ -27,7 +27,8 @@ namespace CdsNatremia.Fhir.Reading;
 /// positive integers only as JSON integers above zero.</item>
 /// </list>
 /// </para>
-/// Stateless and thread-safe.
+/// Every element it accepts is stored on the model object, as the SDK stores it, so a reader that starts using an element
+/// gets the same value on both paths. Stateless and thread-safe.
 /// </summary>
 public sealed class FastResourceReader
 {
