@@ -63,6 +63,18 @@ public class StoreWriteBenchmarks
         [new FeedbackEntry { Card = _target.CardUuid, Outcome = FeedbackOutcome.Overridden, OutcomeTimestamp = DateTimeOffset.UnixEpoch.AddTicks(Random.Shared.NextInt64(1, 10_000_000_000)) }],
         DateTimeOffset.UtcNow, CancellationToken.None);
 
+    /// <summary>32 answers at once (one per connection of the load run), each in a transaction of its own.</summary>
+    [Benchmark(Description = "32 concurrent answers, per-answer commit")]
+    public Task ThirtyTwoAnswersEachCommitted() => Task.WhenAll(Enumerable.Range(0, 32).Select(_ => _store.RecordIssuedAsync([Card()], CancellationToken.None)));
+
+    /// <summary>The same 32 answers through the group-commit writer: those queued together share a transaction.</summary>
+    [Benchmark(Description = "32 concurrent answers, group commit")]
+    public async Task ThirtyTwoAnswersGroupCommitted()
+    {
+        await using var queue = new AuditWriteQueue(_store, capacity: 1024, maxAnswersPerCommit: 256);
+        await Task.WhenAll(Enumerable.Range(0, 32).Select(_ => queue.RecordAsync([Card()], CancellationToken.None)));
+    }
+
     private static IssuedCardRecord Card() => new()
     {
         CardUuid = Guid.NewGuid(),

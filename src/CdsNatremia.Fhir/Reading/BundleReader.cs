@@ -8,14 +8,35 @@ namespace CdsNatremia.Fhir.Reading;
 /// Reads a prefetch value (or a fetched search result): null, a Bundle, a single resource, or an OperationOutcome.
 /// A Bundle is split into entries and each resource is parsed on its own, so one bad entry is set aside without
 /// losing the others. Each resource is parsed from the request's own UTF-8 bytes (no copy to a string and back).
-/// OperationOutcome entries (search mode "outcome") become notes, never data.
+/// OperationOutcome entries (search mode "outcome") become notes, never data. With a <see cref="FastResourceReader"/>,
+/// each resource is first offered to it; what it does not take (anything outside its scope) is parsed by the SDK as before.
 /// </summary>
 public sealed class BundleReader
 {
     private readonly ResourceParser _parser;
+    private readonly FastResourceReader? _fast;
 
-    /// <summary>Creates a reader over a shared parser.</summary>
-    public BundleReader(ResourceParser parser) => _parser = parser ?? throw new ArgumentNullException(nameof(parser));
+    /// <summary>Creates a reader over a shared parser, and optionally the fast reader tried first for each resource.</summary>
+    public BundleReader(ResourceParser parser, FastResourceReader? fast = null)
+    {
+        _parser = parser ?? throw new ArgumentNullException(nameof(parser));
+        _fast = fast;
+    }
+
+    /// <summary>True when resources are offered to the fast reader first.</summary>
+    public bool UsesFastReader => _fast is not null;
+
+    /// <summary>The fast reader's model objects when it takes the resource, else the SDK's outcome.</summary>
+    private Resource? Parse(JsonElement raw, out string? problem)
+    {
+        if (_fast?.TryRead(raw) is { } fast)
+        {
+            problem = null;
+            return fast;
+        }
+
+        return _parser.TryParse(raw, out problem);
+    }
 
     /// <summary>
     /// Reads one value: a prefetch key, a fetched query, or a hook context field (<paramref name="key"/> is then the field
@@ -49,7 +70,7 @@ public sealed class BundleReader
             case "Bundle":
                 return ReadBundle(key, source, value, origin);
             default:
-                var single = _parser.TryParse(value, out var problem);
+                var single = Parse(value, out var problem);
                 return single is null
                     ? Unusable(key, $"{source}: the {type} could not be read as FHIR R4 ({problem})")
                     : new PrefetchValue(key, PrefetchValueKind.Data, [new ParsedResource(single, null, source, origin)], []);
@@ -96,7 +117,7 @@ public sealed class BundleReader
         }
 
         var fullUrl = entry.TryGetProperty("fullUrl", out var fu) && fu.ValueKind == JsonValueKind.String ? fu.GetString() : null;
-        var resource = _parser.TryParse(raw, out var problem);
+        var resource = Parse(raw, out var problem);
         if (resource is null)
         {
             var type = raw.TryGetProperty("resourceType", out var rt) && rt.ValueKind == JsonValueKind.String ? rt.GetString() : "resource";

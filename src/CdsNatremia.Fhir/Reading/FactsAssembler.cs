@@ -84,6 +84,9 @@ public sealed class FactsAssembler
                 case Observation observation when _observations.TryRead(observation, patientId, now, item.Origin, out var result, out var aside):
                     if (result is not null)
                     {
+                        // ResultSupersession reads these links later, outside this guard: one of the wrong JSON shape
+                        // (read lazily by the model) must set this result aside here, not fail the whole answer there.
+                        ReadSupersessionLinks(observation);
                         labs.Add((observation, result));
                     }
 
@@ -195,6 +198,16 @@ public sealed class FactsAssembler
         return subject is not null && !References.IsPatient(subject, patientId)
             ? SetAsideItem.AboutAnotherPatient("Observation", analyte)
             : new SetAsideItem(reference, analyte is { } a ? AnalyteUnits.DisplayName(a) + " (value not interpretable)" : "Observation", reason, analyte, at);
+    }
+
+    private static void ReadSupersessionLinks(Observation observation)
+    {
+        foreach (var link in observation.DerivedFrom ?? [])
+        {
+            _ = link?.Reference;
+        }
+
+        _ = observation.Specimen?.Reference;
     }
 
     /// <summary>True when the subject names a patient other than this one (a missing subject is left to each reader).</summary>

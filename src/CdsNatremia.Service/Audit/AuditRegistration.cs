@@ -25,7 +25,23 @@ public static class AuditRegistration
         var previous = PseudonymKeySource.ResolvePrevious(options.PreviousPseudonymKeys);
         builder.Services.AddSingleton(new PatientPseudonymizer(key, previous));
         builder.Services.AddSingleton(_ => AuditStoreFactory.Create(options, contentRoot));
-        builder.Services.AddSingleton<CardAudit>();
+        if (options.GroupCommit)
+        {
+            builder.Services.AddSingleton(sp =>
+            {
+                var audit = sp.GetRequiredService<Microsoft.Extensions.Options.IOptions<AuditOptions>>().Value;
+                return new AuditWriteQueue(sp.GetRequiredService<IAuditStore>(), audit.WriteQueueCapacity, audit.MaxAnswersPerCommit);
+            });
+            builder.Services.AddSingleton(sp => new CardAudit(
+                sp.GetRequiredService<IAuditStore>(), sp.GetRequiredService<PatientPseudonymizer>(), sp.GetRequiredService<CdsNatremia.Fhir.Knowledge.LoadedKnowledge>(),
+                sp.GetRequiredService<AuditWriteQueue>()));
+        }
+        else
+        {
+            builder.Services.AddSingleton(sp => new CardAudit(
+                sp.GetRequiredService<IAuditStore>(), sp.GetRequiredService<PatientPseudonymizer>(), sp.GetRequiredService<CdsNatremia.Fhir.Knowledge.LoadedKnowledge>()));
+        }
+
         builder.Services.AddSingleton<RepeatSuppression>();
         builder.Services.AddHostedService<AuditStartup>();
         builder.Services.AddSingleton<AuditPurgeService>();

@@ -11,7 +11,9 @@ using CdsNatremia.Service.Telemetry;
 namespace CdsNatremia.Service.Audit;
 
 /// <summary>
-/// Records what a hook response issued, before the response is sent (synchronous, durable write: see docs/audit.md).
+/// Records what a hook response issued, before the response is sent (durable write: see docs/audit.md). With group
+/// commit on (the default) the records go through the <see cref="AuditWriteQueue"/>, which commits the records of every
+/// answer waiting at that moment in one transaction; the answer still waits until its own record is durable.
 /// The patient id becomes a keyed pseudonym here and is not passed further; the patient's own reference is dropped
 /// from the resources used.
 /// </summary>
@@ -21,14 +23,16 @@ public sealed class CardAudit
     private readonly PatientPseudonymizer _pseudonymizer;
     private readonly LoadedKnowledge _knowledge;
     private readonly HashSet<string> _topics;
+    private readonly AuditWriteQueue? _queue;
 
-    /// <summary>Creates the recorder.</summary>
-    public CardAudit(IAuditStore store, PatientPseudonymizer pseudonymizer, LoadedKnowledge knowledge)
+    /// <summary>Creates the recorder; without a queue, each answer's records are written in a transaction of their own.</summary>
+    public CardAudit(IAuditStore store, PatientPseudonymizer pseudonymizer, LoadedKnowledge knowledge, AuditWriteQueue? queue = null)
     {
         _store = store;
         _pseudonymizer = pseudonymizer;
         _knowledge = knowledge;
         _topics = CardTopics.All(knowledge.Base).Select(t => t.Code).ToHashSet(StringComparer.Ordinal);
+        _queue = queue;
     }
 
     /// <summary>The service's software version (assembly informational version), as audit records carry it.</summary>
@@ -66,7 +70,10 @@ public sealed class CardAudit
         }).ToList();
     }
 
-    /// <summary>Records one response's cards (flagged when the request was marked as test traffic); completes once they are durably stored.</summary>
+    /// <summary>
+    /// Records one response's cards (flagged when the request was marked as test traffic); completes once they are durably
+    /// stored. Throws <see cref="AuditQueueFullException"/> at once when the group-commit queue is full (nothing queued).
+    /// </summary>
     public async Task RecordAsync(ServiceDefinition service, Guid hookInstance, string patientId, DateTimeOffset now, IReadOnlyList<IssuedCard> issued, bool testTraffic, CancellationToken cancellationToken)
     {
         var records = Records(service, hookInstance, patientId, now, issued, testTraffic);
@@ -77,7 +84,7 @@ public sealed class CardAudit
         var succeeded = false;
         try
         {
-            await _store.RecordIssuedAsync(records, cancellationToken).ConfigureAwait(false);
+            await (_queue is null ? _store.RecordIssuedAsync(records, cancellationToken) : _queue.RecordAsync(records, cancellationToken)).ConfigureAwait(false);
             succeeded = true;
         }
         finally

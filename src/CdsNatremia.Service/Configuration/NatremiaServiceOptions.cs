@@ -29,4 +29,12 @@ public sealed class NatremiaServiceOptions
     /// <summary>Largest JSON nesting depth accepted in a request body. Default 64 (FHIR resources rarely exceed 20).</summary>
     [Range(16, 256)]
     public int MaxJsonDepth { get; set; } = 64;
+
+    /// <summary>
+    /// Read prefetch with the fast reader (<c>FastResourceReader</c>: System.Text.Json straight to the model objects the
+    /// readers use) and fall back to the FHIR SDK's parser for every entry outside its scope. Default true: the
+    /// differential test holds both paths to identical facts and set-aside reasons over every scenario, the synthetic
+    /// population and a corpus of malformed and hostile inputs (docs/performance.md). False reads everything with the SDK.
+    /// </summary>
+    public bool FastPrefetchReader { get; set; } = true;
 }

@@ -28,6 +28,11 @@ public static class ServiceRegistration
 
         services.AddSingleton(TimeProvider.System);
         services.AddSingleton<ResourceParser>();
+        if (builder.Configuration.GetSection(NatremiaServiceOptions.Section).GetValue(nameof(NatremiaServiceOptions.FastPrefetchReader), defaultValue: true))
+        {
+            services.AddSingleton<FastResourceReader>(); // BundleReader takes it when registered
+        }
+
         services.AddSingleton<BundleReader>();
         services.AddSingleton(sp => new FactsAssembler(sp.GetRequiredService<IOptions<RuleOptions>>().Value.Reading));
         services.AddSingleton<ServiceCatalog>();

@@ -1,5 +1,7 @@
 using System.Text.Json;
 using System.Text.Json.Nodes;
+using CdsNatremia.Audit;
+using CdsNatremia.Audit.Storage;
 using CdsNatremia.Service.Audit;
 using CdsNatremia.Service.Configuration;
 using CdsNatremia.Service.Hooks;
@@ -31,6 +33,7 @@ internal static class HookEndpoints
         IOptions<ClientAuthenticationOptions> authOptions,
         IOptions<NatremiaServiceOptions> options,
         IOptions<InputLimitsOptions> limits,
+        IOptions<AuditOptions> auditOptions,
         CancellationToken cancellationToken)
     {
         var (service, document, problem) = await CdsRequestReader.ReadAsync(id, http, catalog, options.Value.MaxJsonDepth, cancellationToken).ConfigureAwait(false);
@@ -58,9 +61,15 @@ internal static class HookEndpoints
                     var reportBase = reportOptions.Value.PublicBaseUrl ?? authOptions.Value.PublicBaseUrl ?? $"{http.Scheme}://{http.Host}";
                     var (body, issued) = writer.Write(cards.Items, cards.PatientId, cards.Now, reportBase);
                     // The audit record is committed before the answer leaves: no answered card without its record (docs/audit.md).
-                    if (!await AuditRecorded(audit, service, document.RootElement, cards, issued, TestTraffic.IsMarked(http), cancellationToken).ConfigureAwait(false))
+                    switch (await AuditRecorded(audit, service, document.RootElement, cards, issued, TestTraffic.IsMarked(http), cancellationToken).ConfigureAwait(false))
                     {
-                        return Problems.Of(StatusCodes.Status503ServiceUnavailable, "Audit trail unavailable", ["The cards could not be recorded in the audit trail, so none are shown; try again shortly."]);
+                        case AuditResult.Unavailable:
+                            return Problems.Of(StatusCodes.Status503ServiceUnavailable, "Audit trail unavailable", ["The cards could not be recorded in the audit trail, so none are shown; try again shortly."]);
+                        case AuditResult.QueueFull:
+                            // Nothing was queued, so nothing is recorded and nothing is shown: the client retries after the pause.
+                            var seconds = auditOptions.Value.QueueFullRetryAfterSeconds;
+                            http.HttpContext.Response.Headers.RetryAfter = seconds.ToString(System.Globalization.CultureInfo.InvariantCulture);
+                            return Problems.Of(StatusCodes.Status503ServiceUnavailable, "Audit trail busy", [$"Too many answers are waiting for their audit records, so none are shown for this request; try again in {seconds} s."]);
                     }
 
                     foreach (var card in issued.Where(c => c.ReportId is not null))
@@ -76,18 +85,29 @@ internal static class HookEndpoints
         }
     }
 
-    private static async Task<bool> AuditRecorded(CardAudit audit, ServiceDefinition service, JsonElement root, HookOutcome.Cards cards, IReadOnlyList<IssuedCard> issued, bool testTraffic, CancellationToken cancellationToken)
+    private enum AuditResult
+    {
+        Recorded,
+        Unavailable,
+        QueueFull,
+    }
+
+    private static async Task<AuditResult> AuditRecorded(CardAudit audit, ServiceDefinition service, JsonElement root, HookOutcome.Cards cards, IReadOnlyList<IssuedCard> issued, bool testTraffic, CancellationToken cancellationToken)
     {
         try
         {
             // The parser has already validated hookInstance as a UUID.
             var hookInstance = root.GetProperty("hookInstance").GetGuid();
             await audit.RecordAsync(service, hookInstance, cards.PatientId, cards.Now, issued, testTraffic, cancellationToken).ConfigureAwait(false);
-            return true;
+            return AuditResult.Recorded;
+        }
+        catch (AuditQueueFullException)
+        {
+            return AuditResult.QueueFull;
         }
         catch (Exception ex) when (ex is System.Data.Common.DbException or IOException or TimeoutException)
         {
-            return false;
+            return AuditResult.Unavailable;
         }
     }
 

@@ -90,14 +90,22 @@ public static partial class GracefulShutdown
         private static partial void LogDraining(ILogger logger, long readinessDelayMs, long drainTimeoutMs);
     }
 
-    /// <summary>Last step (after the server has drained): flush the audit trail.</summary>
-    internal sealed partial class AuditFlush(IAuditStore store, ILogger<AuditFlush> logger) : IHostedService
+    /// <summary>
+    /// Last step (after the server has drained): write what the group-commit queue still holds, then flush the audit trail.
+    /// </summary>
+    internal sealed partial class AuditFlush(IAuditStore store, IServiceProvider services, ILogger<AuditFlush> logger) : IHostedService
     {
         public Task StartAsync(CancellationToken cancellationToken) => Task.CompletedTask;
 
         public async Task StopAsync(CancellationToken cancellationToken)
         {
             var started = Stopwatch.GetTimestamp();
+            if (services.GetService<AuditWriteQueue>() is { } queue)
+            {
+                // Every answer drained above has its record already; anything still queued is written before the exit.
+                await queue.CompleteAsync().ConfigureAwait(false);
+            }
+
             try
             {
                 if (store is SqliteAuditStore sqlite)

@@ -316,4 +316,104 @@ public abstract class AuditStoreContract
         Assert.Equal([before.KeyId, after.KeyId], found.Select(c => c.PseudonymKeyId));
         Assert.Equal([underNew.CardUuid], withoutOldKey.Select(c => c.CardUuid));
     }
+
+    // Group commit (AuditWriteQueue) over this store. The gate holds the writer inside its first commit, so what queues
+    // meanwhile is known exactly: no timing decides the outcome.
+
+    [SkippableFact]
+    public async Task AuditWriteQueue_AnswersQueuedDuringACommit_ShareOneTransactionAndEveryRecordIsStored()
+    {
+        await using var scope = await OpenAsync();
+        var gated = new GatedStore(scope.Store);
+        await using var queue = new AuditWriteQueue(gated, capacity: 100, maxAnswersPerCommit: 256);
+        gated.Hold();
+        var first = Some.Card();
+        var firstDone = queue.RecordAsync([first], None);
+        await gated.Entered;
+        var answers = Enumerable.Range(0, 20).Select(i => i % 2 == 0 ? new[] { Some.Card() } : [Some.Card(), Some.Card(suggestions: 0)]).ToList();
+        var waiting = answers.Select(a => queue.RecordAsync(a, None)).ToList();
+        Assert.All(waiting, t => Assert.False(t.IsCompleted)); // nobody is released before the commit
+
+        gated.Release();
+        await firstDone;
+        await Task.WhenAll(waiting);
+
+        Assert.Equal([1, answers.Sum(a => a.Length)], gated.Calls); // the first alone, then all twenty in one transaction
+        foreach (var card in answers.SelectMany(a => a).Append(first))
+        {
+            Assert.Equal(card.HookInstance, (await scope.Store.FindCardAsync(card.CardUuid, None))?.HookInstance);
+        }
+    }
+
+    [SkippableFact]
+    public async Task AuditWriteQueue_QueueFull_RefusedAtOnceAndEveryAcceptedRecordStored()
+    {
+        await using var scope = await OpenAsync();
+        var gated = new GatedStore(scope.Store);
+        await using var queue = new AuditWriteQueue(gated, capacity: 2, maxAnswersPerCommit: 1);
+        gated.Hold();
+        var (a, b, c, refused) = (Some.Card(), Some.Card(), Some.Card(), Some.Card());
+        var aDone = queue.RecordAsync([a], None);
+        await gated.Entered; // a is in the writer's hands; the queue itself is empty
+        var bDone = queue.RecordAsync([b], None);
+        var cDone = queue.RecordAsync([c], None); // the queue is now full (2)
+
+        // Thrown at once, by the call itself: nothing was queued that could later go missing.
+        Assert.Throws<AuditQueueFullException>(() => { _ = queue.RecordAsync([refused], None); });
+
+        gated.Release();
+        await Task.WhenAll(aDone, bDone, cDone);
+        Assert.Equal((3L, 0L), await scope.Store.CountAsync(None)); // every accepted answer stored, the refused one not
+        Assert.Null(await scope.Store.FindCardAsync(refused.CardUuid, None));
+    }
+
+    [SkippableFact]
+    public async Task AuditWriteQueue_OneAnswerRefusedByTheDatabase_OnlyThatAnswerFailsTheOthersAreStored()
+    {
+        await using var scope = await OpenAsync();
+        var gated = new GatedStore(scope.Store);
+        await using var queue = new AuditWriteQueue(gated, capacity: 100, maxAnswersPerCommit: 256);
+        gated.Hold();
+        var (a, b, poisoned, d) = (Some.Card(), Some.Card(), Some.Card(), Some.Card());
+        gated.Poison(poisoned.CardUuid);
+        var aDone = queue.RecordAsync([a], None);
+        await gated.Entered;
+        var bDone = queue.RecordAsync([b], None);
+        var poisonedDone = queue.RecordAsync([poisoned], None);
+        var dDone = queue.RecordAsync([d], None);
+
+        gated.Release();
+        await Task.WhenAll(aDone, bDone, dDone);
+        await Assert.ThrowsAsync<GatedStore.RefusedException>(() => poisonedDone);
+
+        Assert.Equal([1, 3, 1, 1, 1], gated.Calls); // the shared commit failed whole, then each answer alone
+        Assert.Equal((3L, 0L), await scope.Store.CountAsync(None));
+        Assert.Null(await scope.Store.FindCardAsync(poisoned.CardUuid, None));
+    }
+
+    [SkippableFact]
+    public async Task AuditWriteQueue_CompleteWhileAnswersWait_EveryQueuedRecordWrittenBeforeItReturns()
+    {
+        await using var scope = await OpenAsync();
+        var gated = new GatedStore(scope.Store);
+        var queue = new AuditWriteQueue(gated, capacity: 100, maxAnswersPerCommit: 256);
+        gated.Hold();
+        var cards = Enumerable.Range(0, 5).Select(_ => Some.Card()).ToList();
+        var first = queue.RecordAsync([cards[0]], None);
+        await gated.Entered;
+        var rest = cards.Skip(1).Select(c => queue.RecordAsync([c], None)).ToList();
+
+        var completing = queue.CompleteAsync(); // what graceful shutdown does after the server drained
+        Assert.False(completing.IsCompleted);
+        gated.Release();
+        await completing;
+
+        Assert.True(first.IsCompletedSuccessfully);
+        Assert.All(rest, t => Assert.True(t.IsCompletedSuccessfully));
+        Assert.Equal((5L, 0L), await scope.Store.CountAsync(None));
+
+        var late = Some.Card();
+        await queue.RecordAsync([late], None); // after completion: written on its own, never dropped
+        Assert.NotNull(await scope.Store.FindCardAsync(late.CardUuid, None));
+    }
 }

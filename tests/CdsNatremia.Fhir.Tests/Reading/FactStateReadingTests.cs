@@ -32,6 +32,24 @@ public class FactStateReadingTests
         Assert.Equal(131, Assert.Single(facts.Labs).Value); // the readable entry is still used
     }
 
+    // FHIR R4 Observation.derivedFrom is 0..* Reference and Observation.specimen 0..1 Reference (element definitions);
+    // the SDK's lenient parse keeps a wrong shape and only fails when the element is read.
+    [Theory]
+    [InlineData("\"derivedFrom\":{\"reference\":\"Observation/na-1\"},")]
+    [InlineData("\"derivedFrom\":[{\"reference\":5}],")]
+    [InlineData("\"specimen\":[{\"reference\":\"Specimen/s1\"}],")]
+    public void Read_CorrectionWithALinkOfTheWrongShape_SetAsideAsUninterpretableTheOthersStillRead(string extra)
+    {
+        var facts = Json.Read(Json.Bundle(
+            Sodium("na-1", "final", "125", "2026-03-10T06:00:00Z"),
+            Sodium("na-2", "amended", "127", "2026-03-10T08:00:00Z", extra)));
+
+        var aside = Assert.Single(facts.SetAside);
+        Assert.Equal("Observation/na-2", aside.Reference);
+        Assert.Equal("a value in it could not be interpreted", aside.Reason);
+        Assert.Equal(125, Assert.Single(facts.Labs).Value); // the readable result is still used
+    }
+
     // FHIR R4 Quantity.comparator: "<" means the actual value is less than the stated value.
     [Theory]
     [InlineData("<", ValueComparator.LessThan)]
