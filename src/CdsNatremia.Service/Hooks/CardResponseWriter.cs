@@ -16,9 +16,14 @@ public sealed class CardResponseWriter
     public const string TopicSystem = "https://cdsnatremia.example.org/fhir/CodeSystem/card-topic";
 
     private readonly NatremiaServiceOptions _options;
+    private readonly string? _courseLaunchUrl;
 
     /// <summary>Creates the writer.</summary>
-    public CardResponseWriter(IOptions<NatremiaServiceOptions> options) => _options = options.Value;
+    public CardResponseWriter(IOptions<NatremiaServiceOptions> options, IOptions<Course.CourseOptions> course)
+    {
+        _options = options.Value;
+        _courseLaunchUrl = course.Value.Enabled && !string.IsNullOrEmpty(course.Value.LaunchUrl) ? course.Value.LaunchUrl : null;
+    }
 
     /// <summary>Builds the response body and the record of what was issued.</summary>
     public (JsonObject Body, IReadOnlyList<IssuedCard> Issued) Write(IReadOnlyList<Card> cards, string patientId, DateTimeOffset now)
@@ -61,6 +66,11 @@ public sealed class CardResponseWriter
                 json["overrideReasons"] = new JsonArray(card.OverrideReasons
                     .Select(r => (JsonNode)new JsonObject { ["system"] = r.System, ["code"] = r.Code, ["display"] = r.Display ?? r.Code })
                     .ToArray());
+            }
+
+            if (_courseLaunchUrl is not null && Course.CourseLink.For(card.Topic, uuid, _courseLaunchUrl) is { } link)
+            {
+                json["links"] = new JsonArray(link);
             }
 
             array.Add(json);
