@@ -96,7 +96,7 @@ internal sealed class CourseOptionsValidator(bool development) : Microsoft.Exten
         {
             var ehr = options.Ehrs[i];
             var at = $"{CourseOptions.Section}:Ehrs:{i}";
-            if (!Uri.TryCreate(ehr.Issuer, UriKind.Absolute, out var issuer)
+            if (!Uri.TryCreate(ehr.Issuer, UriKind.Absolute, out var issuer) || !string.IsNullOrEmpty(issuer.Query)
                 || !(issuer.Scheme == Uri.UriSchemeHttps || (development && issuer.Scheme == Uri.UriSchemeHttp && issuer.IsLoopback)))
             {
                 problems.Add($"{at}:Issuer must be the EHR's absolute https FHIR base URL (http only on loopback in Development)");
@@ -113,9 +113,11 @@ internal sealed class CourseOptionsValidator(bool development) : Microsoft.Exten
             }
         }
 
-        if (!string.IsNullOrEmpty(options.LaunchUrl) && !Uri.TryCreate(options.LaunchUrl, UriKind.Absolute, out _))
+        // On Linux "/course/launch" parses as an absolute file: URI, so the scheme is checked too.
+        if (!string.IsNullOrEmpty(options.LaunchUrl)
+            && !(Uri.TryCreate(options.LaunchUrl, UriKind.Absolute, out var launch) && (launch.Scheme == Uri.UriSchemeHttps || launch.Scheme == Uri.UriSchemeHttp)))
         {
-            problems.Add($"{CourseOptions.Section}:LaunchUrl must be an absolute URL");
+            problems.Add($"{CourseOptions.Section}:LaunchUrl must be an absolute http(s) URL");
         }
 
         return problems.Count == 0 ? Microsoft.Extensions.Options.ValidateOptionsResult.Success : Microsoft.Extensions.Options.ValidateOptionsResult.Fail(problems);

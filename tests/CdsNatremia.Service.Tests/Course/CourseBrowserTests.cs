@@ -114,6 +114,11 @@ public sealed class CourseBrowserTests
         Assert.Equal(["138", "124"], rows.Select(r => r.FindElements(By.TagName("td"))[1].Text));
         Assert.Contains("134", driver.FindElement(By.Id("envelope-table")).Text, StringComparison.Ordinal);
         Assert.Contains("hydrochlorothiazide", driver.FindElement(By.Id("report")).FindElement(By.XPath("following-sibling::article")).Text, StringComparison.OrdinalIgnoreCase);
+
+        // No URL the browser saw names the patient, and the service's log holds neither the patient nor the launch's secrets.
+        Assert.DoesNotContain(scenario.PatientId, driver.Url, StringComparison.Ordinal);
+        Assert.DoesNotContain(service.Output, line => line.Contains(scenario.PatientId, StringComparison.Ordinal));
+        Assert.DoesNotContain(service.Output, line => line.Contains("code=", StringComparison.Ordinal) || line.Contains("access_token", StringComparison.Ordinal));
     }
 
     private static ChromeDriver StartChromium()
