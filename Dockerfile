@@ -10,6 +10,7 @@ COPY Directory.Build.props Directory.Packages.props ./
 COPY src/CdsNatremia.Core/CdsNatremia.Core.csproj src/CdsNatremia.Core/
 COPY src/CdsNatremia.Fhir/CdsNatremia.Fhir.csproj src/CdsNatremia.Fhir/
 COPY src/CdsNatremia.Audit/CdsNatremia.Audit.csproj src/CdsNatremia.Audit/
+COPY src/CdsNatremia.Scenarios/CdsNatremia.Scenarios.csproj src/CdsNatremia.Scenarios/
 COPY src/CdsNatremia.Service/CdsNatremia.Service.csproj src/CdsNatremia.Service/
 RUN dotnet restore src/CdsNatremia.Service/CdsNatremia.Service.csproj
 COPY src/ src/

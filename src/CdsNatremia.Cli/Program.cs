@@ -41,6 +41,8 @@ internal static class Program
                 .WithExample("load", "--url", "http://127.0.0.1:5080", "--duration", "30", "--output", "load.json");
             config.AddCommand<ReportCommand>("report").WithDescription("The override report of a running service: per rule, cards shown, accepted and overridden, and why; optional SVG chart.")
                 .WithExample("report", "--url", "http://127.0.0.1:5080", "--from", "2026-11-01", "--to", "2026-11-30", "--chart", "overrides.svg");
+            config.AddCommand<ViewCommand>("view").WithDescription("Write the sodium-course page (chart, tables, full report) of a scenario or Bundle file as one HTML file.")
+                .WithExample("view", "01", "--out", "course.html");
             config.AddCommand<CheckInputCommand>("check-input").WithDescription("Explain, per resource of a Bundle, whether the service will use it and why not.")
                 .WithExample("check-input", "patient.json");
             config.SetExceptionHandler((exception, _) =>

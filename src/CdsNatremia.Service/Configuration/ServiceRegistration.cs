@@ -2,6 +2,7 @@ using CdsNatremia.Core.Engine;
 using CdsNatremia.Fhir.Knowledge;
 using CdsNatremia.Fhir.Reading;
 using CdsNatremia.Service.Audit;
+using CdsNatremia.Service.Course;
 using CdsNatremia.Service.Endpoints;
 using CdsNatremia.Service.Fetching;
 using CdsNatremia.Service.Hooks;
@@ -60,6 +61,7 @@ public static class ServiceRegistration
             sp.GetRequiredService<LoadedKnowledge>().Base,
             displayZone));
         builder.AddNatremiaAudit();
+        builder.AddNatremiaCourse();
         return builder;
     }
 
@@ -77,6 +79,7 @@ public static class ServiceRegistration
         app.MapHealth();
         app.MapFeedback();
         app.MapAdminReports();
+        app.MapCourse();
         return app;
     }
 }

@@ -16,14 +16,17 @@ public sealed class CardResponseWriter
 {
     private readonly NatremiaServiceOptions _options;
     private readonly KnowledgeBase _knowledge;
+    private readonly string? _courseLaunchUrl;
 
     /// <summary>Creates the writer; topic systems and displays come from the loaded card-topic CodeSystem.</summary>
-    public CardResponseWriter(IOptions<NatremiaServiceOptions> options, LoadedKnowledge knowledge)
+    public CardResponseWriter(IOptions<NatremiaServiceOptions> options, LoadedKnowledge knowledge, IOptions<Course.CourseOptions> course)
     {
         ArgumentNullException.ThrowIfNull(options);
         ArgumentNullException.ThrowIfNull(knowledge);
+        ArgumentNullException.ThrowIfNull(course);
         _options = options.Value;
         _knowledge = knowledge.Base;
+        _courseLaunchUrl = course.Value.Enabled && !string.IsNullOrEmpty(course.Value.LaunchUrl) ? course.Value.LaunchUrl : null;
     }
 
     /// <summary>Builds the response body and the record of what was issued.</summary>
@@ -71,16 +74,28 @@ public sealed class CardResponseWriter
                 json["selectionBehavior"] = card.SelectionBehavior == SelectionBehavior.AtMostOne ? "at-most-one" : "any";
             }
 
+            // Links: the sodium-course view (a SMART app) when configured, then the card's full report.
+            var links = new JsonArray();
+            if (_courseLaunchUrl is not null && Course.CourseLink.For(card.Topic, uuid, _courseLaunchUrl) is { } courseLink)
+            {
+                links.Add(courseLink);
+            }
+
             string? reportId = null;
             if (reportBaseUrl is not null && card.Report.Length > 0)
             {
                 reportId = Reports.CardReports.NewId();
-                json["links"] = new JsonArray(new JsonObject
+                links.Add(new JsonObject
                 {
                     ["label"] = ReportLinkLabel,
                     ["url"] = reportBaseUrl.TrimEnd('/') + "/reports/" + reportId,
                     ["type"] = "absolute",
                 });
+            }
+
+            if (links.Count > 0)
+            {
+                json["links"] = links;
             }
 
             if (card.Content is { } content)
