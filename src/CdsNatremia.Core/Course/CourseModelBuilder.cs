@@ -123,7 +123,7 @@ public static class CourseModelBuilder
 
         var limits = options.Resolve();
         var lowest = HighRiskFactors.LowestOfLowStretch(context.Sodium, nadir, context.Thresholds.NormalFrom);
-        var factors = HighRiskFactors.Find(context.Request.Facts, lowest, context.Knowledge, options, context.Display);
+        var factors = HighRiskFactors.Find(context.Request.Facts, lowest, context.Knowledge, options);
         var highRisk = factors.Count > 0;
         var start = nadir.EffectiveAt;
         var day = start.AddHours(24);
@@ -165,8 +165,7 @@ public static class CourseModelBuilder
         var implicated = DrugCauseAnalysis.Find(
             DrugCauseSets.Causes(context.Knowledge),
             facts.Medications.Concat(facts.StoppedMedications),
-            DrugCauseAnalysis.Fall(context),
-            context.Display);
+            DrugCauseAnalysis.Fall(context));
         return implicated.Select(d =>
         {
             var m = d.Medication;
@@ -175,7 +174,7 @@ public static class CourseModelBuilder
                 d.Match.Ingredient,
                 d.Match.Set.Label,
                 d.Timing.Verdict,
-                d.Timing.VerdictText,
+                Rendering.PhraseCatalogue.Default.Render(d.Timing.VerdictFinding, context.Display),
                 m.StartedAt,
                 stopped ? m.EndedAt ?? m.LastRecordedAt : null,
                 !stopped,
@@ -224,7 +223,7 @@ public static class CourseModelBuilder
 
             if (weight is null || serum is null)
             {
-                orders.Add(new CourseOrder(CourseOrderKind.Fluid, infusate.Name, order.StartedAt, order.Reference, null, null,
+                orders.Add(new CourseOrder(CourseOrderKind.Fluid, Rendering.PhraseCatalogue.Default.Render(infusate.Name, context.Display), order.StartedAt, order.Reference, null, null,
                     weight is null ? "no usable body weight, so the effect is not predicted" : "no usable sodium, so the effect is not predicted"));
                 continue;
             }
@@ -236,7 +235,7 @@ public static class CourseModelBuilder
                 : null;
             var effect = Invariant.Format($"predicted {Signed(perLitre)} mmol/L per litre (Adrogué–Madias, total body water {Invariant.Number(Math.Round(water.Litres, 1, MidpointRounding.AwayFromZero))} L)")
                 + (forVolume is { } v ? Invariant.Format($"; {Signed(v)} mmol/L for {Invariant.Number(order.VolumeMilliliters!.Value)} mL") : string.Empty);
-            orders.Add(new CourseOrder(CourseOrderKind.Fluid, infusate.Name, order.StartedAt, order.Reference, perLitre, forVolume, effect));
+            orders.Add(new CourseOrder(CourseOrderKind.Fluid, Rendering.PhraseCatalogue.Default.Render(infusate.Name, context.Display), order.StartedAt, order.Reference, perLitre, forVolume, effect));
         }
 
         return orders;
