@@ -97,30 +97,50 @@ public static class CardRenderer
     private static string? NotUsedLine(RenderContext context)
     {
         var facts = context.Facts;
-        var own = facts.SetAside.Count(s => s.State != FactState.NotThisPatient);
+        var own = facts.SetAside.Where(s => s.State != FactState.NotThisPatient).ToList();
         var others = facts.AboutAnotherPatientCount;
         var unavailable = facts.Unavailable.Count;
-        if (own == 0 && others == 0 && unavailable == 0)
+        if (own.Count == 0 && others == 0 && unavailable == 0)
         {
             return null;
         }
 
+        string Say(Finding f) => context.Phrases.Render(f, context.Display);
         var parts = new List<string>();
-        if (own > 0)
+
+        // This patient's items are named (what and why, briefly); the reasons in full are in the report.
+        foreach (var item in own.Take(MaxNamedNotUsed))
         {
-            parts.Add(context.Phrases.Render(Finding.Of("card.not-used.set-aside", Slot.Count("count", own)), context.Display));
+            var why = item.State switch
+            {
+                FactState.Superseded => "card.not-used.why.superseded",
+                FactState.Absent => "card.not-used.why.absent",
+                _ => "card.not-used.why.unreadable",
+            };
+            parts.Add(Say(Finding.Of("card.not-used.item", Slot.Text("what", Shorten(item.What)), Slot.Phrase("why", Finding.Of(why)))));
+        }
+
+        if (own.Count > MaxNamedNotUsed)
+        {
+            parts.Add(Say(Finding.Of("card.not-used.more", Slot.Count("count", own.Count - MaxNamedNotUsed))));
         }
 
         if (unavailable > 0)
         {
-            parts.Add(context.Phrases.Render(Finding.Of("card.not-used.unavailable", Slot.Count("count", unavailable)), context.Display));
+            parts.Add(Say(Finding.Of("card.not-used.unavailable", Slot.Count("count", unavailable))));
         }
 
+        // Another patient's data: a count only, never what it was.
         if (others > 0)
         {
-            parts.Add(context.Phrases.Render(Finding.Of("card.not-used.another-patient", Slot.Count("count", others)), context.Display));
+            parts.Add(Say(Finding.Of("card.not-used.another-patient", Slot.Count("count", others))));
         }
 
-        return context.Phrases.Render(Finding.Of("card.not-used", Slot.Verbatim("parts", string.Join("; ", parts))), context.Display);
+        return Say(Finding.Of("card.not-used", Slot.Verbatim("parts", string.Join("; ", parts))));
     }
+
+    /// <summary>The most items of this patient the card names as not used (the rest are counted).</summary>
+    private const int MaxNamedNotUsed = 2;
+
+    private static string Shorten(string what) => what.Length <= 48 ? what : what[..47].TrimEnd() + "…";
 }

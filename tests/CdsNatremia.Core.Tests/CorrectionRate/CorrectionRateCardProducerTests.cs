@@ -187,7 +187,7 @@ public class CorrectionRateCardProducerTests
         };
         var card = Assert.Single(RateCards(facts));
         Assert.Contains("8 mmol/L", card.Summary, StringComparison.Ordinal);
-        Assert.Contains("Not used (1 unreadable or untrusted)", card.Detail, StringComparison.Ordinal); // counted on the short card
+        Assert.Contains("Not used: Sodium 131 mmol/L: could not be read", card.Detail, StringComparison.Ordinal); // counted on the short card
         Assert.Contains("Observation/na-err", card.Report, StringComparison.Ordinal);
     }
 

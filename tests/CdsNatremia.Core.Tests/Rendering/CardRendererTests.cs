@@ -54,7 +54,7 @@ public class CardRendererTests
     }
 
     [Fact]
-    public void Detail_DataSetAsideAndAnotherPatient_CountedNeverDescribed()
+    public void Detail_DataSetAsideAndAnotherPatient_OwnNamedOthersOnlyCounted()
     {
         var facts = Some.Facts(Some.Sodium(124)) with
         {
@@ -65,7 +65,9 @@ public class CardRendererTests
             ],
         };
         var detail = CardRenderer.Detail(Content([]), new RenderContext(facts, TimeDisplay.Utc(Some.Now)));
-        Assert.Contains("Not used (1 unreadable or untrusted; 1 about another patient): see the full report.", detail, StringComparison.Ordinal);
-        Assert.DoesNotContain("131", detail, StringComparison.Ordinal);
+        // What the service could not use is said on the card (briefly; the reason in full is in the report); another
+        // patient's data is counted only, never described.
+        Assert.Contains("Not used: Sodium 131 mg/dL: could not be read; 1 resource(s) about another patient, ignored. Reasons in the full report.", detail, StringComparison.Ordinal);
+        Assert.DoesNotContain("unit not recognised", detail, StringComparison.Ordinal);
     }
 }
