@@ -77,6 +77,19 @@ internal static class AuditSchema
             "CREATE TABLE card_fingerprint (card_uuid TEXT NOT NULL PRIMARY KEY, patient_pseudonym TEXT NOT NULL, fingerprint TEXT NOT NULL)",
             "CREATE INDEX ix_card_fingerprint_patient ON card_fingerprint (patient_pseudonym, fingerprint)",
         ]),
+
+        // The last time a clinician answered a card of each findings fingerprint for each patient, kept as feedback is
+        // recorded, so a chart opening asks one primary-key row instead of joining every card the patient ever had with
+        // that fingerprint (a chart opened often had thousands). Filled from the feedback already stored.
+        (5,
+        [
+            "CREATE TABLE reviewed_fingerprint (patient_pseudonym TEXT NOT NULL, fingerprint TEXT NOT NULL, reviewed_at_ms BIGINT NOT NULL, PRIMARY KEY (patient_pseudonym, fingerprint))",
+            """
+            INSERT INTO reviewed_fingerprint (patient_pseudonym, fingerprint, reviewed_at_ms)
+            SELECT c.patient_pseudonym, c.fingerprint, MAX(f.outcome_at_ms) FROM feedback f JOIN card_fingerprint c ON c.card_uuid = f.card_uuid
+            GROUP BY c.patient_pseudonym, c.fingerprint
+            """,
+        ]),
     ];
 
     public static int CurrentVersion => Migrations[^1].Version;

@@ -187,6 +187,16 @@ public abstract class SqlAuditStore : IAuditStore
                     ("@system", entry.OverrideReason?.System), ("@code", entry.OverrideReason?.Code), ("@display", entry.OverrideReason?.Display),
                     ("@comment", entry.UserComment), ("@at", entry.OutcomeTimestamp.ToUnixTimeMilliseconds()),
                     ("@received", receivedAt.ToUnixTimeMilliseconds())).ConfigureAwait(false);
+
+                // The card's fingerprint counts as reviewed at the latest outcome time seen for it (LastReviewedAsync).
+                await ExecuteAsync(connection, transaction,
+                    """
+                    INSERT INTO reviewed_fingerprint (patient_pseudonym, fingerprint, reviewed_at_ms)
+                    SELECT patient_pseudonym, fingerprint, @at FROM card_fingerprint WHERE card_uuid = @card
+                    ON CONFLICT (patient_pseudonym, fingerprint) DO UPDATE SET reviewed_at_ms = excluded.reviewed_at_ms
+                    WHERE excluded.reviewed_at_ms > reviewed_fingerprint.reviewed_at_ms
+                    """,
+                    cancellationToken, ("@card", Id(entry.Card)), ("@at", entry.OutcomeTimestamp.ToUnixTimeMilliseconds())).ConfigureAwait(false);
             }
 
             await transaction.CommitAsync(cancellationToken).ConfigureAwait(false);
@@ -208,8 +218,8 @@ public abstract class SqlAuditStore : IAuditStore
         await using var connection = await OpenAsync(cancellationToken).ConfigureAwait(false);
         var value = await ScalarAsync(connection, null,
             """
-            SELECT MAX(f.outcome_at_ms) FROM feedback f JOIN card_fingerprint c ON c.card_uuid = f.card_uuid
-            WHERE c.patient_pseudonym = @patient AND c.fingerprint = @fingerprint AND f.outcome_at_ms >= @since
+            SELECT reviewed_at_ms FROM reviewed_fingerprint
+            WHERE patient_pseudonym = @patient AND fingerprint = @fingerprint AND reviewed_at_ms >= @since
             """,
             cancellationToken, ("@patient", patientPseudonym), ("@fingerprint", fingerprint), ("@since", since.ToUnixTimeMilliseconds())).ConfigureAwait(false);
         return value is null or DBNull ? null : DateTimeOffset.FromUnixTimeMilliseconds(Convert.ToInt64(value, System.Globalization.CultureInfo.InvariantCulture));
@@ -356,6 +366,13 @@ public abstract class SqlAuditStore : IAuditStore
             await ExecuteAsync(connection, transaction, $"DELETE FROM feedback WHERE card_uuid IN ({Old})", cancellationToken, cut).ConfigureAwait(false);
             await ExecuteAsync(connection, transaction, $"DELETE FROM card_rule WHERE card_uuid IN ({Old})", cancellationToken, cut).ConfigureAwait(false);
             await ExecuteAsync(connection, transaction, $"DELETE FROM card_fingerprint WHERE card_uuid IN ({Old})", cancellationToken, cut).ConfigureAwait(false);
+            // A review stamp goes with the last card of its patient and fingerprint, or once it is older than the cut.
+            await ExecuteAsync(connection, transaction,
+                """
+                DELETE FROM reviewed_fingerprint WHERE reviewed_at_ms < @cut OR NOT EXISTS (SELECT 1 FROM card_fingerprint c
+                    WHERE c.patient_pseudonym = reviewed_fingerprint.patient_pseudonym AND c.fingerprint = reviewed_fingerprint.fingerprint)
+                """,
+                cancellationToken, cut).ConfigureAwait(false);
             await ExecuteAsync(connection, transaction, $"DELETE FROM card_suggestion WHERE card_uuid IN ({Old})", cancellationToken, cut).ConfigureAwait(false);
             var deleted = await ExecuteAsync(connection, transaction, "DELETE FROM issued_card WHERE issued_at_ms < @cut", cancellationToken, cut).ConfigureAwait(false);
             await transaction.CommitAsync(cancellationToken).ConfigureAwait(false);

@@ -69,6 +69,40 @@ public abstract class AuditStoreContract
 
         Assert.Null(await scope.Store.LastReviewedAsync(card.PatientPseudonym, "fingerprint-a", at.AddDays(-1), None));
         Assert.Equal(0L, Convert.ToInt64(await scope.Store.QueryScalarAsync("SELECT COUNT(*) FROM card_fingerprint", None), System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(0L, Convert.ToInt64(await scope.Store.QueryScalarAsync("SELECT COUNT(*) FROM reviewed_fingerprint", None), System.Globalization.CultureInfo.InvariantCulture));
+    }
+
+    [SkippableFact]
+    public async Task LastReviewedAsync_ManyCardsOfOneFingerprintAnsweredOutOfOrder_LatestOutcomeTime()
+    {
+        await using var scope = await OpenAsync();
+        var cards = Enumerable.Range(0, 5).Select(i => Some.Card(issuedAt: Some.Now.AddMinutes(i)) with { FindingsFingerprint = "fingerprint-m" }).ToList();
+        await scope.Store.RecordIssuedAsync(cards, None);
+        var later = Some.Now.AddMinutes(40);
+        var earlier = Some.Now.AddMinutes(20);
+
+        // The later answer arrives first; the earlier one must not move the review time back.
+        await scope.Store.RecordFeedbackAsync(cards[3].ServiceId, [Some.Overridden(cards[3], at: later)], later, None);
+        await scope.Store.RecordFeedbackAsync(cards[1].ServiceId, [Some.Accepted(cards[1], earlier)], later.AddMinutes(1), None);
+
+        Assert.Equal(later, await scope.Store.LastReviewedAsync(cards[0].PatientPseudonym, "fingerprint-m", Some.Now, None));
+        Assert.Null(await scope.Store.LastReviewedAsync(cards[0].PatientPseudonym, "fingerprint-m", later.AddMilliseconds(1), None));
+    }
+
+    [SkippableFact]
+    public async Task PurgeAsync_OldCardsGoneNewerCardOfTheSameFingerprintKept_RecentReviewKept()
+    {
+        await using var scope = await OpenAsync();
+        var old = Some.Card(issuedAt: Some.Now.AddDays(-800)) with { FindingsFingerprint = "fingerprint-k" };
+        var recent = Some.Card(issuedAt: Some.Now.AddHours(-2)) with { FindingsFingerprint = "fingerprint-k" };
+        await scope.Store.RecordIssuedAsync([old, recent], None);
+        var at = Some.Now.AddHours(-1);
+        await scope.Store.RecordFeedbackAsync(recent.ServiceId, [Some.Overridden(recent, at: at)], at, None);
+
+        await scope.Store.PurgeAsync(Some.Now.AddDays(-730), None);
+
+        Assert.Equal(at, await scope.Store.LastReviewedAsync(recent.PatientPseudonym, "fingerprint-k", Some.Now.AddHours(-24), None));
+        Assert.Equal(1L, Convert.ToInt64(await scope.Store.QueryScalarAsync("SELECT COUNT(*) FROM reviewed_fingerprint", None), System.Globalization.CultureInfo.InvariantCulture));
     }
 
     [SkippableFact]

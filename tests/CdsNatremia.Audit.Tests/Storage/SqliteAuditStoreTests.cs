@@ -60,6 +60,54 @@ public sealed class SqliteAuditStoreTests : AuditStoreContract
     }
 
     [Fact]
+    public async Task InitializeAsync_TrailAtVersionFourWithAnsweredCards_ReviewTimesCarriedOver()
+    {
+        var folder = NewFolder();
+        try
+        {
+            var card = Some.Card(issuedAt: Some.Now) with { FindingsFingerprint = "fingerprint-v4" };
+            var first = Some.Now.AddMinutes(3);
+            var last = Some.Now.AddMinutes(9);
+            await using (var old = new SqliteAuditStore(Path.Combine(folder, "audit.db")))
+            {
+                // The schema as version 4 left it, with one card answered twice (the review time was read by a join then).
+                await old.QueryScalarAsync(AuditSchema.VersionTable, None);
+                foreach (var (version, statements) in AuditSchema.Migrations.Where(m => m.Version <= 4))
+                {
+                    foreach (var statement in statements)
+                    {
+                        await old.QueryScalarAsync(statement, None);
+                    }
+
+                    await old.QueryScalarAsync($"INSERT INTO schema_version (version, applied_at_ms) VALUES ({version}, 0)", None);
+                }
+
+                await old.QueryScalarAsync(
+                    "INSERT INTO issued_card (card_uuid, service_id, hook, hook_instance, patient_pseudonym, rule_ids, knowledge_version, software_version, indicator, topic, summary, resources_used, suggestion_uuids, issued_at_ms) "
+                    + $"VALUES ('{card.CardUuid:D}', '{card.ServiceId}', 'patient-view', '{card.HookInstance:D}', '{card.PatientPseudonym}', '[]', 'kb', 'sw', 'warning', 'sodium-assessment', 's', '[]', '{{}}', {card.IssuedAt.ToUnixTimeMilliseconds()})",
+                    None);
+                await old.QueryScalarAsync($"INSERT INTO card_fingerprint (card_uuid, patient_pseudonym, fingerprint) VALUES ('{card.CardUuid:D}', '{card.PatientPseudonym}', 'fingerprint-v4')", None);
+                foreach (var (key, at) in new[] { ("k1", first), ("k2", last) })
+                {
+                    await old.QueryScalarAsync(
+                        "INSERT INTO feedback (feedback_key, card_uuid, service_id, outcome, accepted_suggestions, outcome_at_ms, received_at_ms) "
+                        + $"VALUES ('{key}', '{card.CardUuid:D}', '{card.ServiceId}', 'overridden', '[]', {at.ToUnixTimeMilliseconds()}, {at.ToUnixTimeMilliseconds()})",
+                        None);
+                }
+            }
+
+            await using var store = new SqliteAuditStore(Path.Combine(folder, "audit.db"));
+            await store.InitializeAsync(None);
+
+            Assert.Equal(last, await store.LastReviewedAsync(card.PatientPseudonym, "fingerprint-v4", Some.Now, None));
+        }
+        finally
+        {
+            TryDelete(folder);
+        }
+    }
+
+    [Fact]
     public async Task InitializeAsync_NewFile_WriteAheadLogMode()
     {
         await using var scope = await OpenAsync();
