@@ -1,5 +1,4 @@
 using System.Text.Json;
-using System.Text.Json.Nodes;
 using CdsNatremia.Audit;
 using CdsNatremia.Audit.Storage;
 using CdsNatremia.Service.Audit;
@@ -20,7 +19,7 @@ internal static class HookEndpoints
         return app;
     }
 
-    public static async Task<Results<Ok<JsonObject>, ProblemHttpResult>> Invoke(
+    public static async Task<Results<CardsResponse, ProblemHttpResult>> Invoke(
         string id,
         HttpRequest http,
         ServiceCatalog catalog,
@@ -78,7 +77,7 @@ internal static class HookEndpoints
                     }
 
                     RequestLogItems.NoteCards(http.HttpContext, cards.Items);
-                    return TypedResults.Ok(body);
+                    return body;
                 default:
                     throw new InvalidOperationException("Unknown hook outcome.");
             }
