@@ -82,10 +82,12 @@ public abstract class SqlAuditStore : IAuditStore
         {
             await using var connection = await OpenAsync(cancellationToken).ConfigureAwait(false);
             await using var transaction = await BeginWriteAsync(connection, cancellationToken).ConfigureAwait(false);
+            // One prepared command per statement for the whole group: a group commit writes many cards and their rules.
+            await using var statements = new ReusedCommands(connection, transaction);
             foreach (var card in cards)
             {
                 var uuid = Id(card.CardUuid);
-                await ExecuteAsync(connection, transaction,
+                await statements.ExecuteAsync(
                     """
                     INSERT INTO issued_card (card_uuid, service_id, hook, hook_instance, patient_pseudonym, rule_ids, knowledge_version,
                         software_version, indicator, topic, summary, resources_used, suggestion_uuids, issued_at_ms, test_traffic, pseudonym_key_id)
@@ -100,19 +102,19 @@ public abstract class SqlAuditStore : IAuditStore
                     ("@at", card.IssuedAt.ToUnixTimeMilliseconds()), ("@test", card.TestTraffic ? 1 : 0), ("@keyid", card.PseudonymKeyId)).ConfigureAwait(false);
                 if (!string.IsNullOrEmpty(card.FindingsFingerprint))
                 {
-                    await ExecuteAsync(connection, transaction, "INSERT INTO card_fingerprint (card_uuid, patient_pseudonym, fingerprint) VALUES (@card, @patient, @fingerprint)", cancellationToken,
+                    await statements.ExecuteAsync( "INSERT INTO card_fingerprint (card_uuid, patient_pseudonym, fingerprint) VALUES (@card, @patient, @fingerprint)", cancellationToken,
                         ("@card", uuid), ("@patient", card.PatientPseudonym), ("@fingerprint", card.FindingsFingerprint)).ConfigureAwait(false);
                 }
 
                 foreach (var rule in card.RuleIds.Distinct(StringComparer.Ordinal))
                 {
-                    await ExecuteAsync(connection, transaction, "INSERT INTO card_rule (card_uuid, rule_id) VALUES (@card, @rule)", cancellationToken,
+                    await statements.ExecuteAsync( "INSERT INTO card_rule (card_uuid, rule_id) VALUES (@card, @rule)", cancellationToken,
                         ("@card", uuid), ("@rule", rule)).ConfigureAwait(false);
                 }
 
                 foreach (var (key, suggestion) in card.SuggestionUuids)
                 {
-                    await ExecuteAsync(connection, transaction, "INSERT INTO card_suggestion (suggestion_uuid, card_uuid, suggestion_key) VALUES (@s, @card, @key)", cancellationToken,
+                    await statements.ExecuteAsync( "INSERT INTO card_suggestion (suggestion_uuid, card_uuid, suggestion_key) VALUES (@s, @card, @key)", cancellationToken,
                         ("@s", Id(suggestion)), ("@card", uuid), ("@key", key)).ConfigureAwait(false);
                 }
             }
@@ -429,6 +431,47 @@ public abstract class SqlAuditStore : IAuditStore
 
     /// <inheritdoc />
     public abstract ValueTask DisposeAsync();
+
+    /// <summary>
+    /// Commands kept prepared for the length of one transaction, one per SQL text: the second and later rows of a statement
+    /// only bind new values (no new parse). Parameters keep the names, order and types of the first use.
+    /// </summary>
+    private sealed class ReusedCommands(DbConnection connection, DbTransaction transaction) : IAsyncDisposable
+    {
+        private readonly Dictionary<string, DbCommand> _commands = new(StringComparer.Ordinal);
+
+        public async Task<int> ExecuteAsync(string sql, CancellationToken cancellationToken, params (string Name, object? Value)[] parameters)
+        {
+            if (_commands.TryGetValue(sql, out var command))
+            {
+                for (var i = 0; i < parameters.Length; i++)
+                {
+                    var parameter = command.Parameters[i];
+                    if (!string.Equals(parameter.ParameterName, parameters[i].Name, StringComparison.Ordinal))
+                    {
+                        throw new InvalidOperationException($"A reused statement was given parameter {parameters[i].Name} where {parameter.ParameterName} was.");
+                    }
+
+                    parameter.Value = parameters[i].Value ?? DBNull.Value;
+                }
+            }
+            else
+            {
+                command = Command(connection, transaction, sql, parameters);
+                _commands[sql] = command;
+            }
+
+            return await command.ExecuteNonQueryAsync(cancellationToken).ConfigureAwait(false);
+        }
+
+        public async ValueTask DisposeAsync()
+        {
+            foreach (var command in _commands.Values)
+            {
+                await command.DisposeAsync().ConfigureAwait(false);
+            }
+        }
+    }
 
     /// <summary>Runs a statement; returns the rows affected.</summary>
     protected static async Task<int> ExecuteAsync(DbConnection connection, DbTransaction? transaction, string sql, CancellationToken cancellationToken, params (string Name, object? Value)[] parameters)
