@@ -1,3 +1,4 @@
+using System.Collections.Frozen;
 using System.Text.RegularExpressions;
 using CdsNatremia.Core.Facts;
 
@@ -11,8 +12,10 @@ namespace CdsNatremia.Core.Knowledge;
 /// </summary>
 public sealed class CodeSet
 {
-    private readonly Dictionary<string, HashSet<string>> _codes;
-    private readonly Dictionary<string, string[]> _prefixes;
+    private readonly CodeRef[] _codeList;
+    private readonly CodeRef[] _prefixList;
+    private readonly FrozenDictionary<string, FrozenSet<string>> _codes;
+    private readonly FrozenDictionary<string, string[]> _prefixes;
     private readonly Regex? _names;
 
     /// <summary>Creates a code set.</summary>
@@ -39,12 +42,19 @@ public sealed class CodeSet
         Version = Guard.NotNull(version, nameof(version));
         Label = Guard.NotNull(label, nameof(label));
         Tier = tier;
-        _codes = Guard.NotNull(codes, nameof(codes))
+        // Lists in the order loaded (for listing and checks); frozen look-ups for matching on every request.
+        var byCodeSystem = Guard.NotNull(codes, nameof(codes))
             .GroupBy(c => c.System, StringComparer.Ordinal)
-            .ToDictionary(g => g.Key, g => g.Select(c => Normalize(g.Key, c.Code)).ToHashSet(StringComparer.OrdinalIgnoreCase), StringComparer.Ordinal);
-        _prefixes = Guard.NotNull(prefixes, nameof(prefixes))
+            .Select(g => (System: g.Key, Codes: g.Select(c => Normalize(g.Key, c.Code)).Distinct(StringComparer.OrdinalIgnoreCase).ToArray()))
+            .ToArray();
+        _codeList = byCodeSystem.SelectMany(g => g.Codes.Select(c => new CodeRef(g.System, c))).ToArray();
+        _codes = byCodeSystem.ToFrozenDictionary(g => g.System, g => g.Codes.ToFrozenSet(StringComparer.OrdinalIgnoreCase), StringComparer.Ordinal);
+        var byPrefixSystem = Guard.NotNull(prefixes, nameof(prefixes))
             .GroupBy(c => c.System, StringComparer.Ordinal)
-            .ToDictionary(g => g.Key, g => g.Select(c => Normalize(g.Key, c.Code)).Distinct(StringComparer.OrdinalIgnoreCase).ToArray(), StringComparer.Ordinal);
+            .Select(g => (System: g.Key, Prefixes: g.Select(c => Normalize(g.Key, c.Code)).Distinct(StringComparer.OrdinalIgnoreCase).ToArray()))
+            .ToArray();
+        _prefixList = byPrefixSystem.SelectMany(g => g.Prefixes.Select(c => new CodeRef(g.System, c))).ToArray();
+        _prefixes = byPrefixSystem.ToFrozenDictionary(g => g.System, g => g.Prefixes, StringComparer.Ordinal);
         Names = Guard.NotNull(names, nameof(names))
             .Select(n => n.Trim().ToLowerInvariant())
             .Where(n => n.Length >= 3)
@@ -88,10 +98,10 @@ public sealed class CodeSet
     public IReadOnlyList<string> Names { get; }
 
     /// <summary>Every exact code, for checks against source tables.</summary>
-    public IEnumerable<CodeRef> Codes => _codes.SelectMany(kv => kv.Value.Select(c => new CodeRef(kv.Key, c)));
+    public IEnumerable<CodeRef> Codes => _codeList;
 
     /// <summary>Every class prefix.</summary>
-    public IEnumerable<CodeRef> Prefixes => _prefixes.SelectMany(kv => kv.Value.Select(c => new CodeRef(kv.Key, c)));
+    public IEnumerable<CodeRef> Prefixes => _prefixList;
 
     /// <summary>True when the code is in the set, exactly or under one of its class prefixes.</summary>
     public bool Matches(CodeRef code)
@@ -107,8 +117,18 @@ public sealed class CodeSet
             return true;
         }
 
-        return _prefixes.TryGetValue(code.System, out var prefixes)
-            && prefixes.Any(p => value.StartsWith(p, StringComparison.OrdinalIgnoreCase));
+        if (_prefixes.TryGetValue(code.System, out var prefixes))
+        {
+            foreach (var prefix in prefixes)
+            {
+                if (value.StartsWith(prefix, StringComparison.OrdinalIgnoreCase))
+                {
+                    return true;
+                }
+            }
+        }
+
+        return false;
     }
 
     private static void WarmUp(Regex names, string sample) => _ = names.IsMatch(sample);

@@ -1,3 +1,4 @@
+using System.Collections.Frozen;
 using CdsNatremia.Core.Facts;
 
 namespace CdsNatremia.Core.Knowledge;
@@ -7,7 +8,9 @@ namespace CdsNatremia.Core.Knowledge;
 /// </summary>
 public sealed class KnowledgeBase
 {
-    private readonly Dictionary<string, CodeSet> _sets;
+    private readonly CodeSet[] _inOrder;
+    private readonly CodeSet[] _byId;
+    private readonly FrozenDictionary<string, CodeSet> _sets;
 
     /// <summary>Creates a knowledge base from code sets; ids must be unique.</summary>
     /// <param name="sets">The code sets (from ValueSets).</param>
@@ -16,14 +19,19 @@ public sealed class KnowledgeBase
     public KnowledgeBase(IEnumerable<CodeSet> sets, string version, IReadOnlyDictionary<string, IReadOnlyList<CodeRef>>? codeSystems = null)
     {
         CodeSystems = codeSystems ?? new Dictionary<string, IReadOnlyList<CodeRef>>(StringComparer.Ordinal);
-        _sets = new Dictionary<string, CodeSet>(StringComparer.Ordinal);
+        var unique = new Dictionary<string, CodeSet>(StringComparer.Ordinal);
         foreach (var set in Guard.NotNull(sets, nameof(sets)))
         {
-            if (!_sets.TryAdd(set.Id, set))
+            if (!unique.TryAdd(set.Id, set))
             {
                 throw new ArgumentException($"Two code sets share the id '{set.Id}'.", nameof(sets));
             }
         }
+
+        // Read by every request: a frozen look-up by id, the sets in load order, and once sorted by id for prefix queries.
+        _inOrder = [.. unique.Values];
+        _byId = [.. _inOrder.OrderBy(s => s.Id, StringComparer.Ordinal)];
+        _sets = unique.ToFrozenDictionary(StringComparer.Ordinal);
 
         Version = Guard.NotNull(version, nameof(version));
     }
@@ -38,12 +46,12 @@ public sealed class KnowledgeBase
     public IReadOnlyDictionary<string, IReadOnlyList<CodeRef>> CodeSystems { get; }
 
     /// <summary>All sets.</summary>
-    public IReadOnlyCollection<CodeSet> Sets => _sets.Values;
+    public IReadOnlyCollection<CodeSet> Sets => _inOrder;
 
     /// <summary>The set with this id, or null.</summary>
     public CodeSet? Find(string id) => _sets.GetValueOrDefault(id);
 
     /// <summary>Sets whose id starts with a prefix, e.g. "drug-" or "condition-".</summary>
     public IEnumerable<CodeSet> WithIdPrefix(string prefix)
-        => _sets.Values.Where(s => s.Id.StartsWith(prefix, StringComparison.Ordinal)).OrderBy(s => s.Id, StringComparer.Ordinal);
+        => _byId.Where(s => s.Id.StartsWith(prefix, StringComparison.Ordinal));
 }

@@ -1,3 +1,4 @@
+using System.Collections.Frozen;
 using CdsNatremia.Core.Facts;
 using Hl7.Fhir.Model;
 
@@ -9,8 +10,8 @@ namespace CdsNatremia.Fhir.Reading;
 /// </summary>
 public static class ConditionReader
 {
-    private static readonly HashSet<string> ActiveStatuses = new(StringComparer.Ordinal) { "active", "recurrence", "relapse" };
-    private static readonly HashSet<string> ExcludedVerification = new(StringComparer.Ordinal) { "refuted", "entered-in-error" };
+    private static readonly FrozenSet<string> ActiveStatuses = FrozenSet.Create(StringComparer.Ordinal, "active", "recurrence", "relapse");
+    private static readonly FrozenSet<string> ExcludedVerification = FrozenSet.Create(StringComparer.Ordinal, "refuted", "entered-in-error");
 
     /// <summary>Reads one Condition, or returns null when it does not count.</summary>
     public static ConditionFact? Read(Condition condition, string patientId)

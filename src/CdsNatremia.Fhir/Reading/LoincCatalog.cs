@@ -1,3 +1,4 @@
+using System.Collections.Frozen;
 using CdsNatremia.Core.Facts;
 
 namespace CdsNatremia.Fhir.Reading;
@@ -46,10 +47,13 @@ public static class LoincCatalog
     };
 
     /// <summary>Codes that are recognised but never used, with the reason.</summary>
-    private static readonly Dictionary<string, (Analyte Analyte, string Reason)> Refused = new(StringComparer.Ordinal)
+    private static readonly FrozenDictionary<string, (Analyte Analyte, string Reason)> Refused = new Dictionary<string, (Analyte Analyte, string Reason)>(StringComparer.Ordinal)
     {
         ["2956-1"] = (Analyte.UrineSodium, "24-hour urine sodium is a rate (mmol/24 h), not a concentration; the rules use spot urine sodium (LOINC 2955-3)"),
-    };
+    }.ToFrozenDictionary(StringComparer.Ordinal);
+
+    /// <summary>The same codes as a frozen look-up (read on every Observation); <see cref="Codes"/> keeps their order for listings.</summary>
+    private static readonly FrozenDictionary<string, Entry> Lookup = Codes.ToFrozenDictionary(StringComparer.Ordinal);
 
     /// <summary>Every LOINC code the service reads.</summary>
     public static IReadOnlyCollection<string> KnownCodes => Codes.Keys;
@@ -58,7 +62,7 @@ public static class LoincCatalog
     public static IEnumerable<string> SodiumCodes => Codes.Where(kv => kv.Value.Analyte == Analyte.Sodium).Select(kv => kv.Key);
 
     /// <summary>Looks up a code the rules use.</summary>
-    public static bool TryGet(string code, out Entry entry) => Codes.TryGetValue(code, out entry);
+    public static bool TryGet(string code, out Entry entry) => Lookup.TryGetValue(code, out entry);
 
     /// <summary>Looks up a code that is recognised but set aside.</summary>
     public static bool IsRefused(string code, out Analyte analyte, out string reason)

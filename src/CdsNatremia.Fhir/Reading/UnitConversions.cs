@@ -1,3 +1,4 @@
+using System.Collections.Frozen;
 using CdsNatremia.Core.Facts;
 
 namespace CdsNatremia.Fhir.Reading;
@@ -13,7 +14,7 @@ namespace CdsNatremia.Fhir.Reading;
 /// </summary>
 public static class UnitConversions
 {
-    private static readonly Dictionary<Analyte, Dictionary<string, double>> Accepted = new()
+    private static readonly FrozenDictionary<Analyte, Dictionary<string, double>> Accepted = new Dictionary<Analyte, Dictionary<string, double>>
     {
         [Analyte.Sodium] = Units(("mmol/L", 1), ("meq/L", 1)),
         [Analyte.UrineSodium] = Units(("mmol/L", 1), ("meq/L", 1)),
@@ -29,19 +30,19 @@ public static class UnitConversions
         [Analyte.Thyrotropin] = Units(("mIU/L", 1), ("m[IU]/L", 1), ("uIU/mL", 1), ("u[IU]/mL", 1), ("µIU/mL", 1)),
         [Analyte.Cortisol] = Units(("nmol/L", 1), ("ug/dL", 27.59), ("µg/dL", 27.59)),
         [Analyte.BodyWeight] = Units(("kg", 1), ("g", 0.001), ("[lb_av]", 0.45359237), ("lb", 0.45359237)),
-    };
+    }.ToFrozenDictionary();
 
     /// <summary>Urea has code-dependent units: urea nitrogen (BUN) in mg/dL differs from urea in mg/dL.</summary>
-    private static readonly Dictionary<string, Dictionary<string, double>> UreaByCode = new(StringComparer.Ordinal)
+    private static readonly FrozenDictionary<string, Dictionary<string, double>> UreaByCode = new Dictionary<string, Dictionary<string, double>>(StringComparer.Ordinal)
     {
         ["3094-0"] = Units(("mg/dL", 1 / 2.8014)),                // urea nitrogen, mass
         ["14937-7"] = Units(("mmol/L", 1)),                      // urea nitrogen, moles (reported as mmol/L of urea: common practice)
         ["22664-7"] = Units(("mmol/L", 1)),                      // urea, moles
         ["3091-6"] = Units(("mg/dL", 1 / 6.006), ("mg/L", 1 / 60.06)), // urea, mass
-    };
+    }.ToFrozenDictionary(StringComparer.Ordinal);
 
     /// <summary>Values outside these canonical bounds are set aside as implausible (probably a unit or entry error; common practice).</summary>
-    private static readonly Dictionary<Analyte, (double Low, double High)> Plausible = new()
+    private static readonly FrozenDictionary<Analyte, (double Low, double High)> Plausible = new Dictionary<Analyte, (double Low, double High)>
     {
         [Analyte.Sodium] = (80, 200),
         [Analyte.UrineSodium] = (0, 400),
@@ -58,7 +59,9 @@ public static class UnitConversions
         [Analyte.Thyrotropin] = (0, 1000),
         [Analyte.Cortisol] = (0, 5000),
         [Analyte.BodyWeight] = (0.3, 400),
-    };
+    }.ToFrozenDictionary();
+
+    // Frozen look-ups by analyte and code (read on every result); each unit table keeps its order, named in messages.
 
     /// <summary>Converts a value to the analyte's canonical unit, or says why it cannot.</summary>
     public static bool TryConvert(Analyte analyte, string loincCode, double value, string? unit, out double canonical, out string reason)
