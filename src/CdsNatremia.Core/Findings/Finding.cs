@@ -43,6 +43,20 @@ public sealed record Finding
         }
     }
 
+    /// <summary>The value of the slot named <paramref name="name"/>, or null (for renderers reading names out of a phrase).</summary>
+    public SlotValue? Find(ReadOnlySpan<char> name)
+    {
+        foreach (var slot in Slots)
+        {
+            if (name.SequenceEqual(slot.Name))
+            {
+                return slot.Value;
+            }
+        }
+
+        return null;
+    }
+
     /// <summary>The same finding with a weight for the short card.</summary>
     public Finding Weighted(int weight) => this with { Weight = weight };
 

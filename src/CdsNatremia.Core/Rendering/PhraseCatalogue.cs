@@ -39,10 +39,18 @@ public sealed class PhraseCatalogue
     /// <summary>Words <paramref name="finding"/> with the display's times.</summary>
     public string Render(Finding finding, TimeDisplay display)
     {
+        var text = new StringBuilder(256);
+        RenderInto(text, finding, display);
+        return text.ToString();
+    }
+
+    /// <summary>Words <paramref name="finding"/> at the end of <paramref name="text"/> (nested phrases and lists too: no string in between).</summary>
+    public void RenderInto(StringBuilder text, Finding finding, TimeDisplay display)
+    {
+        Guard.NotNull(text, nameof(text));
         Guard.NotNull(finding, nameof(finding));
         Guard.NotNull(display, nameof(display));
         var phrase = this[finding.Kind];
-        var text = new StringBuilder(phrase.Length + 64);
         var i = 0;
         while (i < phrase.Length)
         {
@@ -60,19 +68,42 @@ public sealed class PhraseCatalogue
             }
 
             text.Append(phrase, i, open - i);
-            var name = phrase.AsSpan(open + 1, close - open - 1).ToString();
-            var value = finding[name] ?? throw new InvalidOperationException($"Phrase '{finding.Kind}' needs slot '{name}', which the finding does not carry.");
-            text.Append(RenderValue(value, display));
+            var name = phrase.AsSpan(open + 1, close - open - 1);
+            var value = finding.Find(name) ?? throw new InvalidOperationException($"Phrase '{finding.Kind}' needs slot '{name}', which the finding does not carry.");
+            AppendValue(text, value, display);
             i = close + 1;
         }
-
-        return text.ToString();
     }
 
     /// <summary>Words a phrase that takes no slots (headings, standing lines).</summary>
     public string Text(string key) => this[key];
 
-    private string RenderValue(SlotValue value, TimeDisplay display) => value switch
+    private void AppendValue(StringBuilder text, SlotValue value, TimeDisplay display)
+    {
+        switch (value)
+        {
+            case PhraseValue p:
+                RenderInto(text, p.Finding, display);
+                break;
+            case ListValue l:
+                for (var i = 0; i < l.Values.Count; i++)
+                {
+                    if (i > 0)
+                    {
+                        text.Append(l.Separator);
+                    }
+
+                    AppendValue(text, l.Values[i], display);
+                }
+
+                break;
+            default:
+                text.Append(RenderValue(value, display));
+                break;
+        }
+    }
+
+    private static string RenderValue(SlotValue value, TimeDisplay display) => value switch
     {
         NumberValue { Decimals: null } n => ClinicalNumber.Format(n.Value),
         NumberValue n => ClinicalNumber.Rounded(n.Value, n.Decimals.Value),
@@ -88,8 +119,6 @@ public sealed class PhraseCatalogue
         },
         DurationValue d => WorkupData.Duration(d.Hours),
         ResultValue r => Cite.Result(r.Result, display),
-        PhraseValue p => Render(p.Finding, display),
-        ListValue l => string.Join(l.Separator, l.Values.Select(v => RenderValue(v, display))),
         _ => throw new InvalidOperationException($"No rendering for {value.GetType().Name}."),
     };
 

@@ -22,15 +22,16 @@ public static class ReportRenderer
         Guard.NotNull(content, nameof(content));
         Guard.NotNull(context, nameof(context));
         var phrases = context.Phrases;
-        string Say(Finding f) => phrases.Render(f, context.Display);
+        var display = context.Display;
+        void Say(System.Text.StringBuilder text, Finding f) => phrases.RenderInto(text, f, display);
 
-        var detail = new DetailWriter()
-            .Paragraph(phrases.Render(Finding.Of("report.opening", Slot.Phrase("headline", content.Headline), Slot.Time("now", context.Display.Now)), context.Display))
-            .Bullets(phrases.Text("report.findings"), content.Reasons.Select(Say))
-            .Numbered(phrases.Text("report.reasoning"), content.Steps.Select(Say))
-            .Bullets(phrases.Text("report.causes"), content.Causes.Select(Say))
-            .Bullets(phrases.Text("report.next"), content.NextSteps.Select(Say))
-            .Bullets(phrases.Text("report.patient-cautions"), content.Cautions.Select(Say));
+        var detail = new DetailWriter(16 * 1024)
+            .Paragraph(phrases.Render(Finding.Of("report.opening", Slot.Phrase("headline", content.Headline), Slot.Time("now", display.Now)), display))
+            .Bullets(phrases.Text("report.findings"), content.Reasons, Say)
+            .Numbered(phrases.Text("report.reasoning"), content.Steps, Say)
+            .Bullets(phrases.Text("report.causes"), content.Causes, Say)
+            .Bullets(phrases.Text("report.next"), content.NextSteps, Say)
+            .Bullets(phrases.Text("report.patient-cautions"), content.Cautions, Say);
         Footer(detail, context, content.Sources);
         return detail.ToString();
     }

@@ -5,7 +5,10 @@ namespace CdsNatremia.Core.Text;
 /// <summary>Writes a card detail in a fixed shape: bold section headings, bullet lists and numbered steps.</summary>
 public sealed class DetailWriter
 {
-    private readonly StringBuilder _text = new();
+    private readonly StringBuilder _text;
+
+    /// <summary>Creates a writer; <paramref name="capacity"/> is a hint of the text's length.</summary>
+    public DetailWriter(int capacity = 1024) => _text = new StringBuilder(capacity);
 
     /// <summary>Writes a paragraph.</summary>
     public DetailWriter Paragraph(string text)
@@ -53,8 +56,63 @@ public sealed class DetailWriter
         return this;
     }
 
-    /// <inheritdoc />
-    public override string ToString() => _text.ToString().TrimEnd() + "\n";
+    /// <summary>Writes a section heading and a bullet per item, each written by <paramref name="write"/> straight into the text; nothing when the list is empty.</summary>
+    public DetailWriter Bullets<T>(string heading, IReadOnlyList<T> items, Action<StringBuilder, T> write)
+    {
+        ArgumentNullException.ThrowIfNull(items);
+        ArgumentNullException.ThrowIfNull(write);
+        if (items.Count == 0)
+        {
+            return this;
+        }
+
+        Separate();
+        _text.Append("**").Append(heading).Append("**\n\n");
+        foreach (var item in items)
+        {
+            _text.Append("- ");
+            write(_text, item);
+            _text.Append('\n');
+        }
+
+        return this;
+    }
+
+    /// <summary>Writes a section heading and a numbered step per item, each written by <paramref name="write"/>; nothing when the list is empty.</summary>
+    public DetailWriter Numbered<T>(string heading, IReadOnlyList<T> items, Action<StringBuilder, T> write)
+    {
+        ArgumentNullException.ThrowIfNull(items);
+        ArgumentNullException.ThrowIfNull(write);
+        if (items.Count == 0)
+        {
+            return this;
+        }
+
+        Separate();
+        _text.Append("**").Append(heading).Append("**\n\n");
+        for (var i = 0; i < items.Count; i++)
+        {
+            _text.Append(i + 1).Append(". ");
+            write(_text, items[i]);
+            _text.Append('\n');
+        }
+
+        return this;
+    }
+
+    /// <summary>The text, trailing white space folded into one line break.</summary>
+    public override string ToString()
+    {
+        var end = _text.Length;
+        while (end > 0 && char.IsWhiteSpace(_text[end - 1]))
+        {
+            end--;
+        }
+
+        _text.Length = end;
+        _text.Append('\n');
+        return _text.ToString();
+    }
 
     private void Separate()
     {

@@ -19,6 +19,11 @@ public static class Markdown
             return string.Empty;
         }
 
+        if (!NeedsEscape(text))
+        {
+            return text; // the common case: names, codes and references with nothing to escape
+        }
+
         var builder = new StringBuilder(text.Length + 8);
         foreach (var ch in text)
         {
@@ -41,5 +46,18 @@ public static class Markdown
         }
 
         return builder.ToString();
+    }
+
+    private static bool NeedsEscape(string text)
+    {
+        foreach (var ch in text)
+        {
+            if (char.IsControl(ch) || Special.Contains(ch, StringComparison.Ordinal))
+            {
+                return true;
+            }
+        }
+
+        return false;
     }
 }
