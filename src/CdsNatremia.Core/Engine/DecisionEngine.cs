@@ -35,15 +35,41 @@ public sealed class DecisionEngine
     {
         var context = new DecisionContext(request, _options, _knowledge, _displayZone);
         var hook = HookDefinitions.Of(request.Hook);
-        return _producers
-            .Where(hook.Runs)
-            .SelectMany(p => p.Produce(context))
-            .Select((card, index) => (card, index))
-            .OrderByDescending(x => x.card.Indicator)
-            .ThenBy(x => WorkupLast(x.card))
-            .ThenBy(x => x.index)
-            .Select(x => Finish(x.card, context))
-            .ToList();
+        var produced = new List<Card>();
+        foreach (var producer in _producers)
+        {
+            if (hook.Runs(producer))
+            {
+                produced.AddRange(producer.Produce(context));
+            }
+        }
+
+        // Most urgent first; a safety card before the work-up; ties keep the order produced (the index breaks them).
+        var order = new int[produced.Count];
+        for (var i = 0; i < order.Length; i++)
+        {
+            order[i] = i;
+        }
+
+        Array.Sort(order, (a, b) =>
+        {
+            var byIndicator = ((int)produced[b].Indicator).CompareTo((int)produced[a].Indicator);
+            if (byIndicator != 0)
+            {
+                return byIndicator;
+            }
+
+            var byKind = WorkupLast(produced[a]).CompareTo(WorkupLast(produced[b]));
+            return byKind != 0 ? byKind : a.CompareTo(b);
+        });
+
+        var cards = new List<Card>(order.Length);
+        foreach (var index in order)
+        {
+            cards.Add(Finish(produced[index], context));
+        }
+
+        return cards;
     }
 
     /// <summary>
