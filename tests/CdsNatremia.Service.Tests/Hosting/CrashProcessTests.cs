@@ -1,5 +1,4 @@
 using CdsNatremia.Service.Tests.Support;
-using Microsoft.Data.Sqlite;
 using Xunit.Abstractions;
 
 namespace CdsNatremia.Service.Tests.Hosting;
@@ -35,40 +34,12 @@ public sealed class CrashProcessTests(ITestOutputHelper output) : IDisposable
 
         var results = load.Results;
         var answered = results.Where(r => r.Status == 200 && !r.Cut).ToList();
-        var audited = AuditedCards();
+        var audited = AuditedCalls.CardsByHookInstance(Path.Combine(_data, "audit.db"), replayLog: true);
         output.WriteLine($"calls {results.Count}, answered {answered.Count}, without answer {results.Count(r => r.Status == 0)}, cut {results.Count(r => r.Cut)}, hook calls recorded {audited.Count}");
 
         Assert.True(exited, "the service did not end after SIGKILL");
         Assert.True(answered.Count >= 60, $"only {answered.Count} calls were answered before the kill");
-        Assert.All(answered, r =>
-        {
-            Assert.NotEmpty(r.CardUuids); // scenario 01 always gives a card
-            Assert.True(audited.TryGetValue(r.HookInstance, out var cards), $"answered call {r.HookInstance} has no audit record after the crash");
-            Assert.Equal(r.CardUuids.Order(), cards!.Order()); // exactly its cards, each once
-        });
-    }
-
-    /// <summary>hookInstance → card uuids in the database the killed process left (opened read-write, so SQLite replays its log).</summary>
-    private Dictionary<Guid, List<Guid>> AuditedCards()
-    {
-        var cards = new Dictionary<Guid, List<Guid>>();
-        using var connection = new SqliteConnection($"Data Source={Path.Combine(_data, "audit.db")};Mode=ReadWrite;Pooling=False");
-        connection.Open();
-        using var command = connection.CreateCommand();
-        command.CommandText = "SELECT hook_instance, card_uuid FROM issued_card";
-        using var reader = command.ExecuteReader();
-        while (reader.Read())
-        {
-            var hook = Guid.Parse(reader.GetString(0));
-            if (!cards.TryGetValue(hook, out var list))
-            {
-                cards[hook] = list = [];
-            }
-
-            list.Add(Guid.Parse(reader.GetString(1)));
-        }
-
-        return cards;
+        AuditedCalls.AssertEachAnsweredCallHasExactlyItsCards(answered, audited, " after the crash");
     }
 
     public void Dispose()

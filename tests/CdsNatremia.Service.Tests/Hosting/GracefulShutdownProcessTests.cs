@@ -1,6 +1,5 @@
 using System.Net;
 using CdsNatremia.Service.Tests.Support;
-using Microsoft.Data.Sqlite;
 using Xunit.Abstractions;
 
 namespace CdsNatremia.Service.Tests.Hosting;
@@ -55,13 +54,8 @@ public sealed class GracefulShutdownProcessTests(ITestOutputHelper output) : IDi
         Assert.DoesNotContain(results, r => r.Status is not (0 or 200)); // no 5xx on the way down
         Assert.Contains(answered, r => r.StartedAfter); // the shutdown really happened under load
 
-        var audited = AuditedCards();
-        Assert.All(answered, r =>
-        {
-            Assert.NotEmpty(r.CardUuids); // scenario 01 always gives a card
-            Assert.True(audited.TryGetValue(r.HookInstance, out var cards), $"answered call {r.HookInstance} has no audit record");
-            Assert.Equal(r.CardUuids.Order(), cards!.Order()); // exactly its cards, each once
-        });
+        var audited = AuditedCalls.CardsByHookInstance(Path.Combine(_data, "audit.db"), replayLog: false);
+        AuditedCalls.AssertEachAnsweredCallHasExactlyItsCards(answered, audited, string.Empty);
         Assert.Contains(service.Output, l => l.Contains("audit trail (sqlite) flushed", StringComparison.Ordinal));
     }
 
@@ -94,29 +88,6 @@ public sealed class GracefulShutdownProcessTests(ITestOutputHelper output) : IDi
         }
 
         return seen;
-    }
-
-    /// <summary>hookInstance → card uuids of every issued-card record in the audit database the process left.</summary>
-    private Dictionary<Guid, List<Guid>> AuditedCards()
-    {
-        var cards = new Dictionary<Guid, List<Guid>>();
-        using var connection = new SqliteConnection($"Data Source={Path.Combine(_data, "audit.db")};Mode=ReadOnly;Pooling=False");
-        connection.Open();
-        using var command = connection.CreateCommand();
-        command.CommandText = "SELECT hook_instance, card_uuid FROM issued_card";
-        using var reader = command.ExecuteReader();
-        while (reader.Read())
-        {
-            var hook = Guid.Parse(reader.GetString(0));
-            if (!cards.TryGetValue(hook, out var list))
-            {
-                cards[hook] = list = [];
-            }
-
-            list.Add(Guid.Parse(reader.GetString(1)));
-        }
-
-        return cards;
     }
 
     public void Dispose()
