@@ -85,9 +85,10 @@ public sealed class FastResourceReader
     {
         var o = new Observation();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in json.EnumerateObject())
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "resourceType": Once(ref seen, 0); break;
                 case "id": Once(ref seen, 1); o.Id = Str(p.Value); break;
@@ -120,9 +121,10 @@ public sealed class FastResourceReader
     {
         var r = new Patient();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in json.EnumerateObject())
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "resourceType": Once(ref seen, 0); break;
                 case "id": Once(ref seen, 1); r.Id = Str(p.Value); break;
@@ -140,9 +142,10 @@ public sealed class FastResourceReader
     {
         var r = new Condition();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in json.EnumerateObject())
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "resourceType": Once(ref seen, 0); break;
                 case "id": Once(ref seen, 1); r.Id = Str(p.Value); break;
@@ -165,9 +168,10 @@ public sealed class FastResourceReader
     {
         var r = new MedicationStatement();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in json.EnumerateObject())
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "resourceType": Once(ref seen, 0); break;
                 case "id": Once(ref seen, 1); r.Id = Str(p.Value); break;
@@ -190,9 +194,10 @@ public sealed class FastResourceReader
     {
         var r = new MedicationRequest();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in json.EnumerateObject())
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "resourceType": Once(ref seen, 0); break;
                 case "id": Once(ref seen, 1); r.Id = Str(p.Value); break;
@@ -215,9 +220,10 @@ public sealed class FastResourceReader
     {
         var r = new Medication();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in json.EnumerateObject())
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "resourceType": Once(ref seen, 0); break;
                 case "id": Once(ref seen, 1); r.Id = Str(p.Value); break;
@@ -236,9 +242,10 @@ public sealed class FastResourceReader
     {
         var r = new Observation.ReferenceRangeComponent();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "low": Once(ref seen, 0); r.Low = ReadQuantity(p.Value); break;
                 case "high": Once(ref seen, 1); r.High = ReadQuantity(p.Value); break;
@@ -254,9 +261,10 @@ public sealed class FastResourceReader
     {
         var r = new Medication.IngredientComponent();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "itemCodeableConcept": Once(ref seen, 0); r.Item = ReadConcept(p.Value); break;
                 case "itemReference": Once(ref seen, 0); r.Item = ReadReference(p.Value); break;
@@ -273,9 +281,10 @@ public sealed class FastResourceReader
     {
         var r = new MedicationRequest.DispenseRequestComponent();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "quantity": Once(ref seen, 0); r.Quantity = ReadQuantity(p.Value); break;
                 case "validityPeriod": Once(ref seen, 1); r.ValidityPeriod = ReadPeriod(p.Value); break;
@@ -292,9 +301,10 @@ public sealed class FastResourceReader
     {
         var r = new Dosage();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "text": Once(ref seen, 0); r.Text = Str(p.Value); break;
                 case "route": Once(ref seen, 1); r.Route = ReadConcept(p.Value); break;
@@ -311,9 +321,10 @@ public sealed class FastResourceReader
     {
         var r = new Dosage.DoseAndRateComponent();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "type": Once(ref seen, 0); r.Type = ReadConcept(p.Value); break;
                 case "doseQuantity": Once(ref seen, 1); r.Dose = ReadQuantity(p.Value); break;
@@ -329,9 +340,10 @@ public sealed class FastResourceReader
     {
         var r = new Timing();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "repeat": Once(ref seen, 0); r.Repeat = ReadRepeat(p.Value); break;
                 case "code": Once(ref seen, 1); r.Code = ReadConcept(p.Value); break;
@@ -346,9 +358,10 @@ public sealed class FastResourceReader
     {
         var r = new Timing.RepeatComponent();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "count": Once(ref seen, 0); r.Count = PositiveInt(p.Value); break;
                 case "duration": Once(ref seen, 1); r.Duration = ReadDecimal(p.Value); break;
@@ -367,9 +380,10 @@ public sealed class FastResourceReader
     {
         var r = new CodeableConcept();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "coding": Once(ref seen, 0); r.Coding = ListOf(p.Value, ReadCoding); break;
                 case "text": Once(ref seen, 1); r.Text = Str(p.Value); break;
@@ -384,9 +398,10 @@ public sealed class FastResourceReader
     {
         var r = new Coding();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "system": Once(ref seen, 0); r.System = Str(p.Value); break;
                 case "version": Once(ref seen, 1); r.Version = Str(p.Value); break;
@@ -403,9 +418,10 @@ public sealed class FastResourceReader
     {
         var r = new ResourceReference();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "reference": Once(ref seen, 0); r.Reference = Str(p.Value); break;
                 case "type": Once(ref seen, 1); r.Type = Str(p.Value); break;
@@ -421,9 +437,10 @@ public sealed class FastResourceReader
     {
         var r = new Identifier();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "use": Once(ref seen, 0); r.Use = Literal<Identifier.IdentifierUse>(p.Value); break;
                 case "system": Once(ref seen, 1); r.System = Str(p.Value); break;
@@ -439,9 +456,10 @@ public sealed class FastResourceReader
     {
         var r = new Quantity();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "value": Once(ref seen, 0); r.Value = ReadDecimal(p.Value); break;
                 case "comparator": Once(ref seen, 1); r.Comparator = Literal<Quantity.QuantityComparator>(p.Value); break;
@@ -459,9 +477,10 @@ public sealed class FastResourceReader
     {
         var r = new Ratio();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "numerator": Once(ref seen, 0); r.Numerator = ReadQuantity(p.Value); break;
                 case "denominator": Once(ref seen, 1); r.Denominator = ReadQuantity(p.Value); break;
@@ -476,9 +495,10 @@ public sealed class FastResourceReader
     {
         var r = new Period();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "start": Once(ref seen, 0); r.StartElement = ReadDateTime(p.Value); break;
                 case "end": Once(ref seen, 1); r.EndElement = ReadDateTime(p.Value); break;
@@ -493,9 +513,10 @@ public sealed class FastResourceReader
     {
         var r = new HumanName();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "use": Once(ref seen, 0); r.Use = Literal<HumanName.NameUse>(p.Value); break;
                 case "text": Once(ref seen, 1); r.Text = Str(p.Value); break;
@@ -514,9 +535,10 @@ public sealed class FastResourceReader
     {
         var r = new Annotation();
         var seen = 0L;
+        Span<char> nameBuffer = stackalloc char[NameBuffer];
         foreach (var p in Properties(json))
         {
-            switch (p.Name)
+            switch (NameOf(p, nameBuffer))
             {
                 case "text": Once(ref seen, 0); r.Text = new Markdown(Str(p.Value)); break;
                 case "time": Once(ref seen, 1); r.TimeElement = ReadDateTime(p.Value); break;
@@ -531,6 +553,35 @@ public sealed class FastResourceReader
     // ---- primitives and shapes ----
 
     /// <summary>The properties of a non-empty JSON object.</summary>
+    private const int NameBuffer = 32;
+
+    /// <summary>
+    /// A property's name without a new string: its UTF-8 bytes copied into <paramref name="buffer"/> when they are plain
+    /// ASCII (every name this reader knows is). A name with an escape, another character or more than the buffer holds
+    /// is read the allocating way, so it compares exactly as before.
+    /// </summary>
+    private static ReadOnlySpan<char> NameOf(JsonProperty property, Span<char> buffer)
+    {
+        var raw = System.Runtime.InteropServices.JsonMarshal.GetRawUtf8PropertyName(property);
+        if (raw.Length > buffer.Length)
+        {
+            return property.Name;
+        }
+
+        for (var i = 0; i < raw.Length; i++)
+        {
+            var b = raw[i];
+            if (b is > 0x7F or (byte)'\\')
+            {
+                return property.Name;
+            }
+
+            buffer[i] = (char)b;
+        }
+
+        return buffer[..raw.Length];
+    }
+
     private static JsonElement.ObjectEnumerator Properties(JsonElement json)
     {
         if (json.ValueKind != JsonValueKind.Object)

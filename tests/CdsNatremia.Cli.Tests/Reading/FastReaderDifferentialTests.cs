@@ -105,6 +105,17 @@ public sealed class FastReaderDifferentialTests(ITestOutputHelper output)
         Assert.StartsWith("facts.Facts.Labs[0].Value: ", difference, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void HostileCorpus_MarkedName_WrittenWithItsFirstLetterEscapedAndReadBackAsTheSameName()
+    {
+        // JSON (RFC 8259, section 7): "\u0069d" is the name "id"; the corpus uses it to reach the readers' unescaping path.
+        var text = HostileCorpus.Serialize(new JsonObject { ["\u0002id"] = "x" });
+
+        Assert.Equal("{\"\\u0069d\":\"x\"}", text);
+        using var document = JsonDocument.Parse(text);
+        Assert.Equal("x", document.RootElement.GetProperty("id").GetString());
+    }
+
     private static void AssertSame(string name, JsonObject request, string patientId, DateTimeOffset now, Coverage coverage, bool raw = false)
     {
         var text = raw ? HostileCorpus.Serialize(request) : request.ToJsonString();

@@ -19,6 +19,9 @@ public static class HostileCorpus
     /// <summary>A property name with this prefix is written without it (by <see cref="Serialize"/>): a JSON property twice.</summary>
     private const string Duplicate = "\u0001dup\u0001";
 
+    /// <summary>A property name with this prefix is written with its first letter as a JSON \uXXXX escape (by <see cref="Serialize"/>).</summary>
+    private const string Escaped = "\u0002";
+
     private static readonly string[] Keys = ["patient", "sodium", "labs", "conditions", "medicationStatements", "medicationRequests"];
 
     /// <summary>Every case: a name and a prefetch object.</summary>
@@ -57,7 +60,9 @@ public static class HostileCorpus
             Write(writer, node);
         }
 
-        return Encoding.UTF8.GetString(stream.ToArray());
+        // A marked name: the encoder wrote the mark as \u0002; its next character becomes an escape of itself.
+        return System.Text.RegularExpressions.Regex.Replace(Encoding.UTF8.GetString(stream.ToArray()), @"""\\u0002(.)",
+            m => "\"\\u" + ((int)m.Groups[1].Value[0]).ToString("x4", System.Globalization.CultureInfo.InvariantCulture));
     }
 
     private static void Write(Utf8JsonWriter writer, JsonNode? node)
@@ -410,6 +415,20 @@ public static class HostileCorpus
 
             o.Remove(n);
             o["_" + n] = new JsonObject { ["extension"] = new JsonArray(new JsonObject { ["url"] = "http://hl7.org/fhir/StructureDefinition/data-absent-reason", ["valueCode"] = "unknown" }) };
+            return true;
+        });
+        yield return ("name with its first letter escaped", (o, n) =>
+        {
+            var value = o[n]?.DeepClone();
+            o.Remove(n);
+            o[Escaped + n] = value;
+            return true;
+        });
+        yield return ("name with an accent", (o, n) =>
+        {
+            var value = o[n]?.DeepClone();
+            o.Remove(n);
+            o[n + "\u00e9"] = value;
             return true;
         });
         yield return ("name upper case", (o, n) =>
