@@ -4,7 +4,8 @@ using BenchmarkDotNet.Running;
 namespace CdsNatremia.Benchmarks;
 
 /// <summary>
-/// Entry point. <c>write-request FILE</c> writes the typical request (dated now) for the load run; otherwise the
+/// Entry point. <c>write-request FILE</c> writes the typical request (dated now) for the load run; <c>allocations [N]</c>
+/// surveys which types the typical request allocates (<see cref="AllocationSurvey"/>); otherwise the
 /// arguments go to BenchmarkDotNet, with two conveniences: no filter means every benchmark, and <c>--quick</c> means
 /// BenchmarkDotNet's short job (a fast sanity run, not a measurement). See docs/performance.md.
 /// </summary>
@@ -17,6 +18,11 @@ internal static class BenchmarkProgram
             File.WriteAllBytes(args[1], TypicalRequest.Utf8(DateTimeOffset.UtcNow));
             Console.WriteLine($"Wrote the typical request ({new FileInfo(args[1]).Length} bytes) to {args[1]}");
             return 0;
+        }
+
+        if (args.Length is 1 or 2 && args[0] == "allocations")
+        {
+            return AllocationSurvey.Run(args.Length == 2 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 2000);
         }
 
         var list = args.SelectMany(a => a == "--quick" ? new[] { "--job", "short" } : [a]).ToList();
