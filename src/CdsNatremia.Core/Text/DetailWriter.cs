@@ -20,66 +20,23 @@ public sealed class DetailWriter
 
     /// <summary>Writes a section heading and a bullet list; nothing when the list is empty.</summary>
     public DetailWriter Bullets(string heading, IEnumerable<string> items)
-    {
-        var list = items.ToList();
-        if (list.Count == 0)
-        {
-            return this;
-        }
-
-        Separate();
-        _text.Append("**").Append(heading).Append("**\n\n");
-        foreach (var item in list)
-        {
-            _text.Append("- ").Append(item).Append('\n');
-        }
-
-        return this;
-    }
+        => Section(heading, items.ToList(), AppendText, numbered: false);
 
     /// <summary>Writes a section heading and numbered steps; nothing when the list is empty.</summary>
     public DetailWriter Numbered(string heading, IEnumerable<string> items)
-    {
-        var list = items.ToList();
-        if (list.Count == 0)
-        {
-            return this;
-        }
-
-        Separate();
-        _text.Append("**").Append(heading).Append("**\n\n");
-        for (var i = 0; i < list.Count; i++)
-        {
-            _text.Append(i + 1).Append(". ").Append(list[i]).Append('\n');
-        }
-
-        return this;
-    }
+        => Section(heading, items.ToList(), AppendText, numbered: true);
 
     /// <summary>Writes a section heading and a bullet per item, each written by <paramref name="write"/> straight into the text; nothing when the list is empty.</summary>
     public DetailWriter Bullets<T>(string heading, IReadOnlyList<T> items, Action<StringBuilder, T> write)
-    {
-        ArgumentNullException.ThrowIfNull(items);
-        ArgumentNullException.ThrowIfNull(write);
-        if (items.Count == 0)
-        {
-            return this;
-        }
-
-        Separate();
-        _text.Append("**").Append(heading).Append("**\n\n");
-        foreach (var item in items)
-        {
-            _text.Append("- ");
-            write(_text, item);
-            _text.Append('\n');
-        }
-
-        return this;
-    }
+        => Section(heading, items, write, numbered: false);
 
     /// <summary>Writes a section heading and a numbered step per item, each written by <paramref name="write"/>; nothing when the list is empty.</summary>
     public DetailWriter Numbered<T>(string heading, IReadOnlyList<T> items, Action<StringBuilder, T> write)
+        => Section(heading, items, write, numbered: true);
+
+    private static void AppendText(StringBuilder text, string item) => text.Append(item);
+
+    private DetailWriter Section<T>(string heading, IReadOnlyList<T> items, Action<StringBuilder, T> write, bool numbered)
     {
         ArgumentNullException.ThrowIfNull(items);
         ArgumentNullException.ThrowIfNull(write);
@@ -92,7 +49,15 @@ public sealed class DetailWriter
         _text.Append("**").Append(heading).Append("**\n\n");
         for (var i = 0; i < items.Count; i++)
         {
-            _text.Append(i + 1).Append(". ");
+            if (numbered)
+            {
+                _text.Append(i + 1).Append(". ");
+            }
+            else
+            {
+                _text.Append("- ");
+            }
+
             write(_text, items[i]);
             _text.Append('\n');
         }
