@@ -31,11 +31,12 @@ public sealed record Finding
     {
         get
         {
-            foreach (var slot in Slots)
+            // An indexed loop: foreach over the interface would allocate an enumerator on every look-up.
+            for (var i = 0; i < Slots.Count; i++)
             {
-                if (string.Equals(slot.Name, name, StringComparison.Ordinal))
+                if (string.Equals(Slots[i].Name, name, StringComparison.Ordinal))
                 {
-                    return slot.Value;
+                    return Slots[i].Value;
                 }
             }
 
@@ -46,11 +47,11 @@ public sealed record Finding
     /// <summary>The value of the slot named <paramref name="name"/>, or null (for renderers reading names out of a phrase).</summary>
     public SlotValue? Find(ReadOnlySpan<char> name)
     {
-        foreach (var slot in Slots)
+        for (var i = 0; i < Slots.Count; i++)
         {
-            if (name.SequenceEqual(slot.Name))
+            if (name.SequenceEqual(Slots[i].Name))
             {
-                return slot.Value;
+                return Slots[i].Value;
             }
         }
 

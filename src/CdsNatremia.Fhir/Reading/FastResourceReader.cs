@@ -681,7 +681,7 @@ public sealed class FastResourceReader
     private static FhirDateTime ReadDateTime(JsonElement json)
     {
         var value = Str(json);
-        return FhirDateTime.IsValidValue(value) ? new FhirDateTime(value) : throw OutOfScopeException.Instance;
+        return FhirTime.TryParseCommon(value, out _) || FhirDateTime.IsValidValue(value) ? new FhirDateTime(value) : throw OutOfScopeException.Instance;
     }
 
     private static Date ReadDate(JsonElement json)
@@ -693,8 +693,8 @@ public sealed class FastResourceReader
     private static Instant ReadInstant(JsonElement json)
     {
         var value = Str(json);
-        return Hl7.Fhir.Model.Instant.IsValidValue(value)
-            && DateTimeOffset.TryParse(value, CultureInfo.InvariantCulture, DateTimeStyles.None, out var instant)
+        return FhirTime.TryParseCommon(value, out var instant)
+            || (Hl7.Fhir.Model.Instant.IsValidValue(value) && DateTimeOffset.TryParse(value, CultureInfo.InvariantCulture, DateTimeStyles.None, out instant))
             ? new Instant(instant)
             : throw OutOfScopeException.Instance;
     }
