@@ -39,9 +39,9 @@ public sealed class PhraseCatalogue
     /// <summary>Words <paramref name="finding"/> with the display's times.</summary>
     public string Render(Finding finding, TimeDisplay display)
     {
-        var text = new StringBuilder(256);
+        var text = TextBuffers.Take(256);
         RenderInto(text, finding, display);
-        return text.ToString();
+        return TextBuffers.Return(text);
     }
 
     /// <summary>Words <paramref name="finding"/> at the end of <paramref name="text"/> (nested phrases and lists too: no string in between).</summary>

@@ -5,16 +5,19 @@ namespace CdsNatremia.Core.Text;
 /// <summary>Writes a card detail in a fixed shape: bold section headings, bullet lists and numbered steps.</summary>
 public sealed class DetailWriter
 {
-    private readonly StringBuilder _text;
+    private StringBuilder? _buffer;
+    private string? _done;
 
     /// <summary>Creates a writer; <paramref name="capacity"/> is a hint of the text's length.</summary>
-    public DetailWriter(int capacity = 1024) => _text = new StringBuilder(capacity);
+    public DetailWriter(int capacity = 1024) => _buffer = TextBuffers.Take(capacity);
+
+    private StringBuilder Buffer => _buffer ?? throw new InvalidOperationException("The text is finished: ToString has been called.");
 
     /// <summary>Writes a paragraph.</summary>
     public DetailWriter Paragraph(string text)
     {
         Separate();
-        _text.Append(text).Append('\n');
+        Buffer.Append(text).Append('\n');
         return this;
     }
 
@@ -46,44 +49,52 @@ public sealed class DetailWriter
         }
 
         Separate();
-        _text.Append("**").Append(heading).Append("**\n\n");
+        Buffer.Append("**").Append(heading).Append("**\n\n");
         for (var i = 0; i < items.Count; i++)
         {
             if (numbered)
             {
-                _text.Append(i + 1).Append(". ");
+                Buffer.Append(i + 1).Append(". ");
             }
             else
             {
-                _text.Append("- ");
+                Buffer.Append("- ");
             }
 
-            write(_text, items[i]);
-            _text.Append('\n');
+            write(Buffer, items[i]);
+            Buffer.Append('\n');
         }
 
         return this;
     }
 
-    /// <summary>The text, trailing white space folded into one line break.</summary>
+    /// <summary>The text, trailing white space folded into one line break. It finishes the writer: its buffer is reused.</summary>
     public override string ToString()
     {
-        var end = _text.Length;
-        while (end > 0 && char.IsWhiteSpace(_text[end - 1]))
+        if (_done is not null)
+        {
+            return _done;
+        }
+
+        var text = Buffer;
+        var end = text.Length;
+        while (end > 0 && char.IsWhiteSpace(text[end - 1]))
         {
             end--;
         }
 
-        _text.Length = end;
-        _text.Append('\n');
-        return _text.ToString();
+        text.Length = end;
+        text.Append('\n');
+        _buffer = null;
+        _done = TextBuffers.Return(text);
+        return _done;
     }
 
     private void Separate()
     {
-        if (_text.Length > 0)
+        if (Buffer.Length > 0)
         {
-            _text.Append('\n');
+            Buffer.Append('\n');
         }
     }
 }
