@@ -4,7 +4,7 @@ using BenchmarkDotNet.Running;
 namespace CdsNatremia.Benchmarks;
 
 /// <summary>
-/// Entry point. <c>write-request FILE</c> writes the typical request (dated now) for the load run; <c>allocations [N]</c>
+/// Entry point. <c>write-request FILE</c> writes the typical request (dated now) for the load run; <c>allocations [N] [handler|decide|rules]</c>
 /// surveys which types the typical request allocates (<see cref="AllocationSurvey"/>); otherwise the
 /// arguments go to BenchmarkDotNet, with two conveniences: no filter means every benchmark, and <c>--quick</c> means
 /// BenchmarkDotNet's short job (a fast sanity run, not a measurement). See docs/performance.md.
@@ -20,9 +20,11 @@ internal static class BenchmarkProgram
             return 0;
         }
 
-        if (args.Length is 1 or 2 && args[0] == "allocations")
+        if (args.Length is >= 1 and <= 3 && args[0] == "allocations")
         {
-            return AllocationSurvey.Run(args.Length == 2 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 2000);
+            return AllocationSurvey.Run(
+                args.Length >= 2 ? int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture) : 2000,
+                args.Length == 3 ? args[2] : "handler");
         }
 
         var list = args.SelectMany(a => a == "--quick" ? new[] { "--job", "short" } : [a]).ToList();

@@ -103,7 +103,7 @@ public static class HighRiskFactors
 
             var condition = facts.Conditions
                 .OrderBy(c => c.ResourceId, StringComparer.Ordinal)
-                .FirstOrDefault(c => c.Codes.Any(set.Matches) || set.MatchName(c.Text) is not null);
+                .FirstOrDefault(c => set.MatchesAny(c.Codes) || set.MatchName(c.Text) is not null);
             if (condition is not null)
             {
                 var label = Finding.Of(labelKind);

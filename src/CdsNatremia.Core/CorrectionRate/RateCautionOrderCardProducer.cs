@@ -231,6 +231,6 @@ public sealed class RateCautionOrderCardProducer : ICardProducer
 
         return context.Request.Facts.Conditions
             .OrderBy(c => c.ResourceId, StringComparer.Ordinal)
-            .FirstOrDefault(c => c.Codes.Any(set.Matches) || set.MatchName(c.Text) is not null);
+            .FirstOrDefault(c => set.MatchesAny(c.Codes) || set.MatchName(c.Text) is not null);
     }
 }

@@ -29,7 +29,7 @@ public static class HeartFailureTreatment
 
         return context.Request.Facts.Conditions
             .OrderBy(c => c.ResourceId, StringComparer.Ordinal)
-            .FirstOrDefault(c => c.Codes.Any(set.Matches) || set.MatchName(c.Text) is not null);
+            .FirstOrDefault(c => set.MatchesAny(c.Codes) || set.MatchName(c.Text) is not null);
     }
 
     /// <summary>True when the match is a loop diuretic and the patient has heart failure.</summary>

@@ -113,7 +113,7 @@ public sealed class VolumeCluesRule : IAssessmentRule
 
             foreach (var condition in context.Request.Facts.Conditions.OrderBy(c => c.ResourceId, StringComparer.Ordinal))
             {
-                if (condition.Codes.Any(set.Matches))
+                if (set.MatchesAny(condition.Codes))
                 {
                     yield return (condition, (set.Label, meaning));
                 }
