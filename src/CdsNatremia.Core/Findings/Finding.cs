@@ -27,26 +27,12 @@ public sealed record Finding
     public static Finding Of(string kind, params Slot[] slots) => new() { Kind = kind, Slots = slots };
 
     /// <summary>The value of the slot named <paramref name="name"/>, or null.</summary>
-    public SlotValue? this[string name]
-    {
-        get
-        {
-            // An indexed loop: foreach over the interface would allocate an enumerator on every look-up.
-            for (var i = 0; i < Slots.Count; i++)
-            {
-                if (string.Equals(Slots[i].Name, name, StringComparison.Ordinal))
-                {
-                    return Slots[i].Value;
-                }
-            }
-
-            return null;
-        }
-    }
+    public SlotValue? this[string name] => Find(name);
 
     /// <summary>The value of the slot named <paramref name="name"/>, or null (for renderers reading names out of a phrase).</summary>
     public SlotValue? Find(ReadOnlySpan<char> name)
     {
+        // An indexed loop: foreach over the interface would allocate an enumerator on every look-up.
         for (var i = 0; i < Slots.Count; i++)
         {
             if (name.SequenceEqual(Slots[i].Name))

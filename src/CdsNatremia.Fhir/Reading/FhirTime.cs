@@ -24,11 +24,13 @@ public static class FhirTime
     public static DateTimeOffset? From(string? value)
         => value is null ? null
             : TryParseCommon(value, out var common) ? common
-            : FhirDateTime.IsValidValue(value) ? FromDateTime(new FhirDateTime(value)) : null;
+            : FhirDateTime.IsValidValue(value) ? BySdk(new FhirDateTime(value)) : null;
 
     private static DateTimeOffset? FromDateTime(FhirDateTime value)
-        => value.Value is { } text && TryParseCommon(text, out var common) ? common
-            : value.TryToDateTimeOffset(TimeSpan.Zero, out var parsed) ? parsed : null;
+        => value.Value is { } text && TryParseCommon(text, out var common) ? common : BySdk(value);
+
+    private static DateTimeOffset? BySdk(FhirDateTime value)
+        => value.TryToDateTimeOffset(TimeSpan.Zero, out var parsed) ? parsed : null;
 
     /// <summary>
     /// Parses the common full form <c>yyyy-MM-ddTHH:mm:ss[.fff](Z|±hh:mm)</c> (lengths 20, 24, 25 and 29) with a valid
