@@ -38,10 +38,15 @@ public sealed class FactsAssembler
         var unavailable = new Dictionary<string, string>(StringComparer.Ordinal);
         foreach (var value in valueList)
         {
-            notes.AddRange(value.Problems);
             if (value.Kind is PrefetchValueKind.Failed or PrefetchValueKind.Unusable)
             {
+                // Said once: the first problem is why the data could not be used; only further problems are notes.
                 unavailable[value.Key] = value.Problems.FirstOrDefault() ?? "could not be read";
+                notes.AddRange(value.Problems.Skip(1));
+            }
+            else
+            {
+                notes.AddRange(value.Problems);
             }
         }
 

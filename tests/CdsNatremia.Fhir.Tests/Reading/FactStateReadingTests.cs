@@ -178,4 +178,18 @@ public class FactStateReadingTests
         Assert.NotNull(medicine.ProductUnreadable);
         Assert.Equal("Amlozide combination tablet", medicine.Text);
     }
+
+    [Fact]
+    public void Assemble_APrefetchValueThatCouldNotBeUsed_ItsReasonSaidOnceAsUnavailableFurtherProblemsAsNotes()
+    {
+        var weight = new CdsNatremia.Fhir.Reading.PrefetchValue("weight", CdsNatremia.Fhir.Reading.PrefetchValueKind.Failed, [],
+            ["prefetch 'weight': it was not in prefetch", "the FHIR server answered 404"]);
+
+        var facts = new CdsNatremia.Fhir.Reading.FactsAssembler(new CdsNatremia.Core.Sodium.SodiumReadingOptions())
+            .Assemble(Json.PatientId, Json.Now, [weight], []).Facts;
+
+        Assert.Equal("prefetch 'weight': it was not in prefetch", facts.Unavailable["weight"]);
+        Assert.DoesNotContain("prefetch 'weight': it was not in prefetch", facts.DataNotes);
+        Assert.Contains("the FHIR server answered 404", facts.DataNotes);
+    }
 }
